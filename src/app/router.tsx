@@ -1,0 +1,20 @@
+import { createBrowserRouter, RouterProvider } from 'react-router-dom';
+import { AppShell } from '../components/layouts/app-shell';
+import { HomeRoute } from './routes/home';
+import { NotFoundRoute } from './routes/not-found';
+
+// Feature pages are added here as lazy routes so the first paint stays small.
+export const router = createBrowserRouter([
+  {
+    path: '/',
+    element: <AppShell />,
+    children: [
+      { index: true, element: <HomeRoute /> },
+      { path: '*', element: <NotFoundRoute /> },
+    ],
+  },
+]);
+
+export function AppRouter() {
+  return <RouterProvider router={router} />;
+}
