@@ -1,5 +1,5 @@
 import { createBrowserRouter, RouterProvider } from 'react-router-dom';
-import { AppShell } from '../components/layouts/app-shell';
+import { AppShell } from './layout/app-shell';
 import { HomeRoute } from './routes/home';
 import { NotFoundRoute } from './routes/not-found';
 

@@ -1,5 +1,5 @@
 import { Link, NavLink, Outlet } from 'react-router-dom';
-import { LogoMark } from '../ui/logo-mark';
+import { LogoMark } from '../../components/ui/logo-mark';
 import { HealthBadge } from '../../features/health/components/health-badge';
 
 export type NavItem = { to: string; label: string };
