@@ -51,7 +51,7 @@ export default defineConfig({
     stderr: 'pipe',
     env: {
       PORT: String(port),
-      DB_NAME: process.env.E2E_DB_NAME ?? 'dwellform_e2e',
+      DB_NAME: process.env.E2E_DB_NAME ?? 'dwellform_test_e2e',
       NODE_ENV: 'production',
     },
   },

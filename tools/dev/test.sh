@@ -12,5 +12,10 @@ npx vitest run
 
 echo "== end-to-end tests (Playwright, Debian Chromium) =="
 npx vite build --logLevel warn
-bash tools/dev/db.sh reset-db "${E2E_DB_NAME:-dwellform_e2e}"
+# The end-to-end run gets its own database, recreated each run (the grant on
+# dwellform_test% covers it); `start.ts` migrates and seeds it.
+e2e_db="${E2E_DB_NAME:-dwellform_test_e2e}"
+mariadb --no-defaults --protocol=socket --socket=.data/mariadb.sock -uroot \
+  -e "DROP DATABASE IF EXISTS \`$e2e_db\`; CREATE DATABASE \`$e2e_db\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;"
+export E2E_DB_NAME="$e2e_db"
 npx playwright test
