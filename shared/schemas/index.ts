@@ -1,0 +1,2 @@
+export * from './study';
+export { formatValue, outOfRangeMessage, quantity, label, type Range } from './quantity';
