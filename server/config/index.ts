@@ -1,0 +1,2 @@
+export { loadConfig, APP_VERSION } from './config';
+export type { Config, OAuthConfig } from './config';
