@@ -1,0 +1,56 @@
+import type { LimitCheck, StudySummary } from './metrics';
+
+export type { LimitCheck, StudySummary };
+
+/** Time histories, one entry per accepted step plus t = 0, SI units. */
+export interface SimulationHistory {
+  timeS: Float64Array;
+  airK: Float64Array;
+  pressurePa: Float64Array;
+  /** tool back face (the face away from the part); the tool-side air when there is no tool */
+  toolK: Float64Array;
+  bagSurfaceK: Float64Array;
+  midPlaneK: Float64Array;
+  toolSideSurfaceK: Float64Array;
+  alphaMin: Float64Array;
+  alphaMax: Float64Array;
+  tgMidK: Float64Array;
+  resinModulusMidPa: Float64Array;
+  setpointK: Float64Array;
+}
+
+export interface SimulationResult {
+  modelVersion: string;
+  steps: number;
+  history: SimulationHistory;
+  /** laminate nodes only; temperatureK and alpha are steps×nodes row-major (empty unless recordProfiles) */
+  profiles: { zM: Float64Array; temperatureK: Float64Array; alpha: Float64Array };
+  /** per laminate node; −1 where never reached */
+  nodes: { zM: Float64Array; gelTimeS: Float64Array; vitrificationTimeS: Float64Array };
+  /** 2 points per ply: bottom then top, bottom ply first */
+  plyStresses: { zM: Float64Array; plyIndex: Int32Array; sigma1Pa: Float64Array; sigma2Pa: Float64Array; tau12Pa: Float64Array };
+  /** 1/m, after demould */
+  curvature: { kx: number; ky: number; kxy: number };
+  /** segment start times, then the demould time, s */
+  segmentBoundsS: Float64Array;
+  summary: StudySummary;
+}
+
+export interface SimulateOptions {
+  recordProfiles?: boolean;
+  /** step-size control; defaults follow physics.md §1 (additive to the contract, used by convergence tests) */
+  stepLimits?: Partial<StepLimits>;
+}
+
+export interface StepLimits {
+  /** largest change of air temperature per step, K */
+  maxAirChangeK: number;
+  /** largest change of α at any node per step */
+  maxCureChange: number;
+  /** largest change of any part temperature per step, K (guards the exotherm) */
+  maxPartChangeK: number;
+  /** step cap, s */
+  maxStepS: number;
+}
+
+export const DEFAULT_STEP_LIMITS: StepLimits = { maxAirChangeK: 1, maxCureChange: 0.005, maxPartChangeK: 2, maxStepS: 60 };
