@@ -1,0 +1,302 @@
+import type { ResinCard } from '../schemas/study';
+import { LLS_SWITCH_ALPHA } from '../schemas/study';
+import { perMinToPerS } from '../units';
+
+// Cure kinetics: dα/dt as a function of degree of cure α and temperature T (kelvin), and a step integrator
+// that advances α over a time step at a fixed temperature. Forms (physics.md §2):
+//   nth order:             dα/dt = A e^(−E/RT) (1−α)^n
+//   Kamal–Sourour:         dα/dt = (k1 + k2 α^m)(1−α)^n            (Kamal & Sourour, Polym. Eng. Sci. 13, 1973)
+//   Lee–Loos–Springer:     α < 0.3: (K1 + K2 α)(1−α)(B−α);  α ≥ 0.3: K3 (1−α)   (J. Compos. Mater. 16, 1982)
+// optionally times the diffusion factor f_d = 1/(1 + exp(C(α − (α_C0 + α_CT T))))
+// (Chern & Poehlein 1987; Cole, Hechler & Noël 1991).
+
+/**
+ * Gas constant in J/(mol·K), to the four figures the cure-kinetics literature fits its constants with.
+ * The published Lee–Loos–Springer constants reproduce their reference curves with this value; the CODATA
+ * 8.314462618 shifts the 177 °C half-life from 13.08 to 13.07 min.
+ */
+export const GAS_CONSTANT = 8.314;
+/** A pure autocatalytic term α^m never starts from α = 0: it sees at least this seed. */
+export const ALPHA_SEED = 1e-6;
+/** α stays below 1 so (1 − α)^n and its derivatives stay finite. */
+export const ALPHA_MAX = 1 - 1e-9;
+/** Default tolerance on α per call of advanceCure (absolute near α = 1, relative ×1e-3 near α = 0). */
+export const DEFAULT_CURE_TOLERANCE = 1e-9;
+
+const NTH_ORDER = 0;
+const KAMAL_SOUROUR = 1;
+const LEE_LOOS_SPRINGER = 2;
+
+/** Kinetics in SI with the Arrhenius exponents stored as E/R (kelvin); a plain object for the hot loop. */
+export interface PreparedKinetics {
+  readonly form: 'nth-order' | 'kamal-sourour' | 'lee-loos-springer';
+  /** 0 nth order, 1 Kamal–Sourour, 2 Lee–Loos–Springer */
+  readonly formCode: number;
+  /** pre-exponential factors in 1/s (a2 may be negative for Lee–Loos–Springer) */
+  readonly a1: number;
+  readonly a2: number;
+  readonly a3: number;
+  /** activation energies over R, in K */
+  readonly e1OverR: number;
+  readonly e2OverR: number;
+  readonly e3OverR: number;
+  readonly m: number;
+  readonly n: number;
+  readonly b: number;
+  readonly hasDiffusion: boolean;
+  readonly diffusionC: number;
+  readonly diffusionAlphaC0: number;
+  readonly diffusionAlphaCTPerK: number;
+  /** absolute tolerance on α per advanceCure call */
+  readonly tolerance: number;
+}
+
+export type KineticsInput = Pick<ResinCard, 'kinetics' | 'diffusion'>;
+
+function requireFinite(value: number, field: string, rule: string, ok: boolean): void {
+  if (!Number.isFinite(value) || !ok) {
+    throw new RangeError(`${field}: ${String(value)} is out of range: allowed ${rule}`);
+  }
+}
+
+/**
+ * Convert a resin card's kinetics (and optional diffusion factor) to SI once, at the entry of a simulation.
+ * Lee–Loos–Springer constants are given per minute, as published, and are converted to per second here.
+ */
+export function prepareKinetics(card: KineticsInput, options: { tolerance?: number } = {}): PreparedKinetics {
+  const kin = card.kinetics;
+  const tolerance = options.tolerance ?? DEFAULT_CURE_TOLERANCE;
+  requireFinite(tolerance, 'tolerance', '> 0 and ≤ 1e-3', tolerance > 0 && tolerance <= 1e-3);
+  const base = {
+    a1: 0, a2: 0, a3: 0, e1OverR: 0, e2OverR: 0, e3OverR: 0, m: 0, n: 1, b: 1,
+  };
+  let form: PreparedKinetics['form'];
+  let formCode: number;
+  switch (kin.form) {
+    case 'nth-order':
+      requireFinite(kin.aPerS, 'kinetics.aPerS', '> 0 (1/s)', kin.aPerS > 0);
+      requireFinite(kin.eJPerMol, 'kinetics.eJPerMol', '≥ 0 J/mol', kin.eJPerMol >= 0);
+      requireFinite(kin.n, 'kinetics.n', '≥ 0', kin.n >= 0);
+      form = kin.form;
+      formCode = NTH_ORDER;
+      base.a1 = kin.aPerS;
+      base.e1OverR = kin.eJPerMol / GAS_CONSTANT;
+      base.n = kin.n;
+      break;
+    case 'kamal-sourour':
+      requireFinite(kin.a1PerS, 'kinetics.a1PerS', '≥ 0 (1/s)', kin.a1PerS >= 0);
+      requireFinite(kin.a2PerS, 'kinetics.a2PerS', '≥ 0 (1/s)', kin.a2PerS >= 0);
+      requireFinite(kin.a1PerS + kin.a2PerS, 'kinetics.a1PerS + a2PerS', '> 0 (1/s)', kin.a1PerS + kin.a2PerS > 0);
+      requireFinite(kin.e1JPerMol, 'kinetics.e1JPerMol', '≥ 0 J/mol', kin.e1JPerMol >= 0);
+      requireFinite(kin.e2JPerMol, 'kinetics.e2JPerMol', '≥ 0 J/mol', kin.e2JPerMol >= 0);
+      requireFinite(kin.m, 'kinetics.m', '≥ 0', kin.m >= 0);
+      requireFinite(kin.n, 'kinetics.n', '≥ 0', kin.n >= 0);
+      form = kin.form;
+      formCode = KAMAL_SOUROUR;
+      base.a1 = kin.a1PerS;
+      base.a2 = kin.a2PerS;
+      base.e1OverR = kin.e1JPerMol / GAS_CONSTANT;
+      base.e2OverR = kin.e2JPerMol / GAS_CONSTANT;
+      base.m = kin.m;
+      base.n = kin.n;
+      break;
+    case 'lee-loos-springer':
+      requireFinite(kin.a1PerMin, 'kinetics.a1PerMin', '≥ 0 (1/min)', kin.a1PerMin >= 0);
+      requireFinite(kin.a2PerMin, 'kinetics.a2PerMin', 'a finite number (1/min)', true);
+      requireFinite(kin.a3PerMin, 'kinetics.a3PerMin', '> 0 (1/min)', kin.a3PerMin > 0);
+      requireFinite(kin.e1JPerMol, 'kinetics.e1JPerMol', '≥ 0 J/mol', kin.e1JPerMol >= 0);
+      requireFinite(kin.e2JPerMol, 'kinetics.e2JPerMol', '≥ 0 J/mol', kin.e2JPerMol >= 0);
+      requireFinite(kin.e3JPerMol, 'kinetics.e3JPerMol', '≥ 0 J/mol', kin.e3JPerMol >= 0);
+      // B − α must stay positive below the switch, or the low-cure branch stalls before reaching it.
+      requireFinite(kin.b, 'kinetics.b', `> ${LLS_SWITCH_ALPHA}`, kin.b > LLS_SWITCH_ALPHA);
+      form = kin.form;
+      formCode = LEE_LOOS_SPRINGER;
+      base.a1 = perMinToPerS(kin.a1PerMin);
+      base.a2 = perMinToPerS(kin.a2PerMin);
+      base.a3 = perMinToPerS(kin.a3PerMin);
+      base.e1OverR = kin.e1JPerMol / GAS_CONSTANT;
+      base.e2OverR = kin.e2JPerMol / GAS_CONSTANT;
+      base.e3OverR = kin.e3JPerMol / GAS_CONSTANT;
+      base.b = kin.b;
+      break;
+    default: {
+      const unknownForm = (kin as { form?: unknown }).form;
+      throw new RangeError(
+        `kinetics.form: unknown form ${JSON.stringify(unknownForm)}: allowed 'nth-order', 'kamal-sourour', 'lee-loos-springer'`,
+      );
+    }
+  }
+  const d = card.diffusion;
+  if (d) {
+    requireFinite(d.c, 'diffusion.c', '> 0', d.c > 0);
+    requireFinite(d.alphaC0, 'diffusion.alphaC0', 'a finite number', true);
+    requireFinite(d.alphaCTPerK, 'diffusion.alphaCTPerK', 'a finite number (1/K)', true);
+  }
+  return {
+    form,
+    formCode,
+    ...base,
+    hasDiffusion: d !== undefined,
+    diffusionC: d?.c ?? 0,
+    diffusionAlphaC0: d?.alphaC0 ?? 0,
+    diffusionAlphaCTPerK: d?.alphaCTPerK ?? 0,
+    tolerance,
+  };
+}
+
+/** Diffusion factor f_d (Chern & Poehlein 1987): 1 while the resin is rubbery, → 0 as it vitrifies. */
+export function diffusionFactor(k: PreparedKinetics, alpha: number, TK: number): number {
+  if (!k.hasDiffusion) return 1;
+  return 1 / (1 + Math.exp(k.diffusionC * (alpha - (k.diffusionAlphaC0 + k.diffusionAlphaCTPerK * TK))));
+}
+
+// The rate for rate constants already evaluated at the temperature (K1..K3) and the diffusion centre
+// α_C0 + α_CT·T; `upper` selects the Lee–Loos–Springer branch. Never negative (a negative K1 + K2α at low
+// temperature means no reaction, not un-curing), never NaN.
+function rateAt(k: PreparedKinetics, K1: number, K2: number, K3: number, centre: number, alpha: number, upper: boolean): number {
+  const free = alpha < 1 ? 1 - alpha : 0;
+  let r: number;
+  if (k.formCode === NTH_ORDER) {
+    r = K1 * (k.n === 1 ? free : Math.pow(free, k.n));
+  } else if (k.formCode === KAMAL_SOUROUR) {
+    const seeded = alpha > ALPHA_SEED ? alpha : ALPHA_SEED;
+    r = (K1 + K2 * (k.m === 1 ? seeded : Math.pow(seeded, k.m))) * (k.n === 1 ? free : Math.pow(free, k.n));
+  } else if (upper) {
+    r = K3 * free;
+  } else {
+    r = (K1 + K2 * alpha) * free * (k.b - alpha);
+  }
+  if (!(r > 0)) return 0;
+  if (k.hasDiffusion) r /= 1 + Math.exp(k.diffusionC * (alpha - centre));
+  return r;
+}
+
+/** Lee–Loos–Springer upper branch from the switch on: the switch value itself belongs to the upper branch, so a
+ *  node that has landed on it moves on at the upper rate. */
+function isUpperBranch(k: PreparedKinetics, alpha: number): boolean {
+  return k.formCode === LEE_LOOS_SPRINGER && alpha >= LLS_SWITCH_ALPHA;
+}
+
+/** Cure rate dα/dt in 1/s at degree of cure α and temperature TK (kelvin); ≥ 0 and finite. */
+export function cureRate(k: PreparedKinetics, alpha: number, TK: number): number {
+  const K1 = k.a1 * Math.exp(-k.e1OverR / TK);
+  const K2 = k.a2 * Math.exp(-k.e2OverR / TK);
+  const K3 = k.a3 * Math.exp(-k.e3OverR / TK);
+  return rateAt(k, K1, K2, K3, k.diffusionAlphaC0 + k.diffusionAlphaCTPerK * TK, alpha, isUpperBranch(k, alpha));
+}
+
+// Dormand–Prince 5(4) (Dormand & Prince, J. Comput. Appl. Math. 6, 1980): embedded pair with FSAL.
+const A21 = 1 / 5;
+const A31 = 3 / 40, A32 = 9 / 40;
+const A41 = 44 / 45, A42 = -56 / 15, A43 = 32 / 9;
+const A51 = 19372 / 6561, A52 = -25360 / 2187, A53 = 64448 / 6561, A54 = -212 / 729;
+const A61 = 9017 / 3168, A62 = -355 / 33, A63 = 46732 / 5247, A64 = 49 / 176, A65 = -5103 / 18656;
+const B1 = 35 / 384, B3 = 500 / 1113, B4 = 125 / 192, B5 = -2187 / 6784, B6 = 11 / 84;
+const E1 = 71 / 57600, E3 = -71 / 16695, E4 = 71 / 1920, E5 = -17253 / 339200, E6 = 22 / 525, E7 = -1 / 40;
+
+/** Scratch for one Dormand–Prince step: the 5th-order value, its error estimate and the end rate (FSAL). */
+interface StepResult {
+  alpha: number;
+  error: number;
+  endRate: number;
+}
+const step: StepResult = { alpha: 0, error: 0, endRate: 0 };
+
+function dormandPrince(
+  k: PreparedKinetics, K1: number, K2: number, K3: number, centre: number, upper: boolean,
+  a: number, f1: number, h: number, out: StepResult,
+): void {
+  const f2 = rateAt(k, K1, K2, K3, centre, a + h * A21 * f1, upper);
+  const f3 = rateAt(k, K1, K2, K3, centre, a + h * (A31 * f1 + A32 * f2), upper);
+  const f4 = rateAt(k, K1, K2, K3, centre, a + h * (A41 * f1 + A42 * f2 + A43 * f3), upper);
+  const f5 = rateAt(k, K1, K2, K3, centre, a + h * (A51 * f1 + A52 * f2 + A53 * f3 + A54 * f4), upper);
+  const f6 = rateAt(k, K1, K2, K3, centre, a + h * (A61 * f1 + A62 * f2 + A63 * f3 + A64 * f4 + A65 * f5), upper);
+  const a5 = a + h * (B1 * f1 + B3 * f3 + B4 * f4 + B5 * f5 + B6 * f6);
+  const f7 = rateAt(k, K1, K2, K3, centre, a5, upper);
+  out.alpha = a5;
+  out.endRate = f7;
+  out.error = Math.abs(h * (E1 * f1 + E3 * f3 + E4 * f4 + E5 * f5 + E6 * f6 + E7 * f7));
+}
+
+const MAX_SUBSTEPS = 100_000;
+
+/**
+ * Advance the degree of cure over dtS seconds at the fixed temperature TK. Sub-stepped Dormand–Prince 5(4)
+ * with error control on α (tolerance k.tolerance per call). The Lee–Loos–Springer switch at α = 0.3 is
+ * landed on exactly (the step that would cross it is shortened by Newton iteration on its length), then the
+ * upper branch takes over: the rate jump never sits inside a step. Returns α in [alpha, ALPHA_MAX].
+ */
+export function advanceCure(k: PreparedKinetics, alpha: number, TK: number, dtS: number): number {
+  if (!(dtS >= 0) || !Number.isFinite(dtS)) throw new RangeError(`advanceCure: time step ${String(dtS)} s: allowed ≥ 0 and finite`);
+  if (!(TK > 0) || !Number.isFinite(TK)) throw new RangeError(`advanceCure: temperature ${String(TK)} K: allowed > 0 and finite`);
+  if (!(alpha >= 0 && alpha <= 1)) throw new RangeError(`advanceCure: degree of cure ${String(alpha)}: allowed 0..1`);
+  let a = alpha < ALPHA_MAX ? alpha : ALPHA_MAX;
+  if (dtS === 0) return a;
+  const K1 = k.a1 * Math.exp(-k.e1OverR / TK);
+  const K2 = k.a2 * Math.exp(-k.e2OverR / TK);
+  const K3 = k.a3 * Math.exp(-k.e3OverR / TK);
+  const centre = k.diffusionAlphaC0 + k.diffusionAlphaCTPerK * TK;
+  const lls = k.formCode === LEE_LOOS_SPRINGER;
+  let upper = isUpperBranch(k, a);
+  let f = rateAt(k, K1, K2, K3, centre, a, upper);
+  let t = 0;
+  let h = dtS;
+  for (let i = 0; i < MAX_SUBSTEPS; i++) {
+    // At a fixed temperature the equation is autonomous: a zero rate is an equilibrium.
+    if (f === 0) return a;
+    const remaining = dtS - t;
+    if (h > remaining) h = remaining;
+    // An explicit step should not leap most of the way to the end of the reaction in one go.
+    const room = (lls && !upper ? k.b : 1) - a;
+    if (h * f > 0.5 * room) h = (0.5 * room) / f;
+    dormandPrince(k, K1, K2, K3, centre, upper, a, f, h, step);
+    // Mixed tolerance: relative while α is tiny (an autocatalytic start amplifies early relative errors).
+    const tol = k.tolerance * (a + 1e-3);
+    const err = step.error;
+    if (err <= tol) {
+      if (lls && !upper && step.alpha >= LLS_SWITCH_ALPHA) {
+        t += landOnSwitch(k, K1, K2, K3, centre, a, f, h, (LLS_SWITCH_ALPHA - a) / (step.alpha - a));
+        a = LLS_SWITCH_ALPHA;
+        upper = true;
+        f = rateAt(k, K1, K2, K3, centre, a, true);
+      } else {
+        const next = step.alpha < ALPHA_MAX ? step.alpha : ALPHA_MAX;
+        if (next > a) a = next;
+        f = step.endRate;
+        t += h;
+      }
+      if (t >= dtS * (1 - 1e-14)) return a;
+    }
+    // Standard step-size control for a 5th-order method (Hairer, Nørsett & Wanner, Solving ODEs I, §II.4).
+    const factor = err === 0 ? 5 : 0.9 * Math.pow(tol / err, 0.2);
+    h *= factor > 5 ? 5 : factor < 0.2 ? 0.2 : factor;
+  }
+  throw new Error(`advanceCure: no convergence within ${MAX_SUBSTEPS} sub-steps (α ${a}, T ${TK} K, dt ${dtS} s)`);
+}
+
+// Length of the step from α (< 0.3) that ends exactly on the switch: Newton on g(s) = Φ(s) − 0.3 with
+// g'(s) = f(Φ(s)), where Φ is the Dormand–Prince step map of the lower branch (smooth across 0.3).
+function landOnSwitch(
+  k: PreparedKinetics, K1: number, K2: number, K3: number, centre: number,
+  a: number, f: number, hMax: number, fraction: number,
+): number {
+  let s = hMax * Math.min(Math.max(fraction, 0), 1);
+  for (let it = 0; it < 20; it++) {
+    dormandPrince(k, K1, K2, K3, centre, false, a, f, s, step);
+    const g = step.alpha - LLS_SWITCH_ALPHA;
+    if (Math.abs(g) < 1e-14 || step.endRate <= 0) break;
+    let next = s - g / step.endRate;
+    if (next <= 0) next = s / 2;
+    if (next > hMax) next = hMax;
+    s = next;
+  }
+  return s;
+}
+
+/**
+ * Degree of cure to start a simulation from: 0, except for a purely autocatalytic Kamal–Sourour law
+ * (k1 = 0), which would never leave α = 0 and starts from the seed instead (physics.md §2).
+ */
+export function initialDegreeOfCure(k: PreparedKinetics): number {
+  return k.formCode === KAMAL_SOUROUR && k.a1 === 0 ? ALPHA_SEED : 0;
+}
