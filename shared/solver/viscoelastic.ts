@@ -12,6 +12,9 @@
 // CHILE (Johnston, Vaziri & Poursartip 2001 (memory)) is one term with τ → ∞ (e = 1, g = 1): a hypoelastic
 // modulus that is piecewise linear in T* = T − Tg(α) between a rubbery and a glassy value.
 
+import type { ResinCard } from '../schemas/study';
+import { gpaToPa } from '../units';
+
 /** R in J/(mol·K) (CODATA 2018, exact). */
 export const GAS_CONSTANT = 8.314462618;
 
@@ -52,6 +55,48 @@ export interface ResinRelaxation {
   timesS: Float64Array;
   shift: ShiftSI;
   chile: ChileSI;
+}
+
+/**
+ * The card's modulus block in SI. CHILE runs through the same path as one term of τ = ∞ whose share of
+ * E_u − E∞ is the glassy fraction at T* (set per step), so its weights and times are fixed here.
+ */
+export function prepareResinRelaxation(modulus: ResinCard['modulus']): ResinRelaxation {
+  const unrelaxedPa = gpaToPa(modulus.unrelaxedGPa);
+  const relaxedPa = gpaToPa(modulus.relaxedGPa);
+  if (!(unrelaxedPa > relaxedPa && relaxedPa > 0)) {
+    throw new RangeError(
+      `resin.modulus.relaxedGPa: ${String(modulus.relaxedGPa)} GPa is out of range: allowed > 0 and < unrelaxedGPa (${String(modulus.unrelaxedGPa)} GPa)`,
+    );
+  }
+  const { weights, timesS } = modulus.prony;
+  if (modulus.model === 'prony' && (weights.length !== timesS.length || weights.length === 0)) {
+    throw new RangeError(`resin.modulus.prony.timesS: ${timesS.length} times for ${weights.length} weights: allowed one time per weight`);
+  }
+  if (!(modulus.chile.glassyOffsetC < modulus.chile.rubberyOffsetC)) {
+    throw new RangeError(
+      `resin.modulus.chile.glassyOffsetC: ${String(modulus.chile.glassyOffsetC)} °C is out of range: allowed < rubberyOffsetC (${String(modulus.chile.rubberyOffsetC)} °C)`,
+    );
+  }
+  const table = modulus.shift.cureTable;
+  const chile = modulus.model === 'chile';
+  return {
+    model: modulus.model,
+    unrelaxedPa,
+    relaxedPa,
+    weights: chile ? Float64Array.of(1) : Float64Array.from(weights),
+    timesS: chile ? Float64Array.of(Infinity) : Float64Array.from(timesS),
+    shift: {
+      wlfC1: modulus.shift.wlfC1,
+      wlfC2K: modulus.shift.wlfC2K,
+      offsetK: modulus.shift.offsetC,
+      arrheniusEJPerMol: modulus.shift.arrheniusEJPerMol,
+      cureAlpha: table ? Float64Array.from(table.alpha) : null,
+      cureLog10a: table ? Float64Array.from(table.log10a) : null,
+    },
+    // Offsets are temperature differences: the same number in °C and K.
+    chile: { glassyOffsetK: modulus.chile.glassyOffsetC, rubberyOffsetK: modulus.chile.rubberyOffsetC },
+  };
 }
 
 /** log₁₀ of a table value at α: linear interpolation, flat beyond the ends. */
