@@ -1,4 +1,4 @@
-import type { FibreCard, Limits, ResinCard } from '../schemas/study';
+import type { Limits } from '../schemas/study';
 import { kToC, mToMm, sToMin } from '../units';
 import { glassTransitionK, type GlassTransitionK } from './glass-transition';
 
@@ -183,15 +183,6 @@ export function observeStep(tr: MetricsTracker, tS: number, TK: Float64Array, al
 
 function clamp01(x: number): number {
   return x < 0 ? 0 : x > 1 ? 1 : x;
-}
-
-/**
- * Adiabatic temperature rise ΔT_ad = (1 − V_f) ρ_r H_R / (ρ_c c_p), with ρ_c c_p by volume-weighted mixture
- * of the constituents (physics.md §3): how hot a thick section would get if none of the heat left.
- */
-export function adiabaticRiseK(resin: ResinCard, fibre: FibreCard, vf: number): number {
-  const rhoCp = vf * fibre.densityKgM3 * fibre.specificHeatJPerKgK + (1 - vf) * resin.densityKgM3 * resin.specificHeatJPerKgK;
-  return ((1 - vf) * resin.densityKgM3 * resin.heatOfReactionKJPerKg * 1e3) / rhoCp;
 }
 
 export interface SummaryInputs {

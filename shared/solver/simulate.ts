@@ -1,14 +1,257 @@
-import type { StudyParams } from '../schemas/study';
-import type { SimulateOptions, SimulationResult } from './simulation-result';
+import { StudyInputError, validateStudy, type StudyParams } from '../schemas/study';
+import { glassTransitionK } from './glass-transition';
+import { advanceCycle, airAt, airRateKPerS, createCycleState, nextEventS, prepareCycle, scheduledDurationS, TIME_EPS_S } from './cycle';
+import { createMechanics, demould, mechanicsResult, mechanicsStep, primeMechanics, resinModulusPa } from './mechanics';
+import { createMetricsTracker, observeStep, summarize } from './metrics';
+import { DEFAULT_STEP_LIMITS, type SimulateOptions, type SimulationResult, type StepLimits } from './simulation-result';
+import { adiabaticTemperatureRiseK, advanceThermochemical, createThermochemical, maxCureRate } from './thermochemical';
 
-export type { SimulationResult, SimulationHistory, SimulateOptions, StepLimits, StudySummary, LimitCheck } from './simulation-result';
+export type { LimitCheck, SimulateOptions, SimulationHistory, SimulationResult, StepLimits, StudySummary } from './simulation-result';
 export { DEFAULT_STEP_LIMITS } from './simulation-result';
 
-export const MODEL_VERSION = 'dwellform-solver 0.1.0';
+// The adaptive time loop (physics.md §1): cycle → heat and cure through the thickness → ply stresses and
+// laminate equilibrium, step by step, with histories recorded and metrics tracked on the way. Everything is
+// allocated once per simulation (history buffers grow by doubling, a handful of times per run), never per step.
 
-/** Placeholder until the thermo-chemical and mechanical modules land (same signature as the final loop). */
-export function simulate(params: StudyParams, options: SimulateOptions = {}): SimulationResult {
-  void params;
-  void options;
-  throw new Error('simulate: not wired yet');
+export const MODEL_VERSION = 'dwellform-solver 1.0.0';
+
+/** Far more steps than any valid study needs; reaching it means the step control has failed. */
+const MAX_STEPS = 5_000_000;
+/** Energy-balance residual above which the summary warns (physics.md §3 accepts < 0.5 %). */
+const ENERGY_WARNING = 0.005;
+
+const HISTORY_KEYS = [
+  'timeS', 'airK', 'pressurePa', 'toolK', 'bagSurfaceK', 'midPlaneK', 'toolSideSurfaceK',
+  'alphaMin', 'alphaMax', 'tgMidK', 'resinModulusMidPa', 'setpointK',
+] as const;
+type HistoryKey = (typeof HISTORY_KEYS)[number];
+
+/** Growable column store: one Float64Array per series, doubled when full. */
+interface Recorder {
+  length: number;
+  capacity: number;
+  series: Record<HistoryKey, Float64Array>;
+  /** profile rows (laminate nodes), or width 0 when not recorded */
+  width: number;
+  profileT: Float64Array;
+  profileAlpha: Float64Array;
+}
+
+function createRecorder(capacity: number, width: number): Recorder {
+  const series = {} as Record<HistoryKey, Float64Array>;
+  for (const k of HISTORY_KEYS) series[k] = new Float64Array(capacity);
+  return { length: 0, capacity, series, width, profileT: new Float64Array(capacity * width), profileAlpha: new Float64Array(capacity * width) };
+}
+
+function grow(a: Float64Array, size: number): Float64Array {
+  const b = new Float64Array(size);
+  b.set(a);
+  return b;
+}
+
+/** Append a row; returns its index. */
+function nextRow(r: Recorder): number {
+  if (r.length === r.capacity) {
+    r.capacity *= 2;
+    for (const k of HISTORY_KEYS) r.series[k] = grow(r.series[k], r.capacity);
+    if (r.width > 0) {
+      r.profileT = grow(r.profileT, r.capacity * r.width);
+      r.profileAlpha = grow(r.profileAlpha, r.capacity * r.width);
+    }
+  }
+  return r.length++;
+}
+
+/** Run one study. Throws StudyInputError (fields, values, allowed ranges) on invalid input. */
+export function simulate(input: StudyParams, options: SimulateOptions = {}): SimulationResult {
+  const checked = validateStudy(input);
+  if (!checked.ok) throw new StudyInputError(checked.issues);
+  const params = checked.params;
+  const limits: StepLimits = { ...DEFAULT_STEP_LIMITS, ...options.stepLimits };
+  for (const [k, v] of Object.entries(limits)) {
+    if (!(v > 0) || !Number.isFinite(v)) throw new StudyInputError([{ path: `options.stepLimits.${k}`, message: `${String(v)} is out of range: allowed > 0 and finite` }]);
+  }
+
+  // --- set-up (all allocation happens here) ---
+  const program = prepareCycle(params.cycle);
+  const cycle = createCycleState(program);
+  const air0 = airAt(program, cycle, 0);
+  const tc = createThermochemical(params, { initialK: air0.airK });
+  tc.toolAirK = air0.toolAirK;
+  const nodes = tc.zM.length;
+  const last = nodes - 1;
+  const thicknessM = tc.zM[last];
+  const hasTool = params.tool.kind === 'plate';
+
+  // Mid-plane: between the two laminate nodes around half the thickness.
+  let mid = 0;
+  while (mid < last - 1 && tc.zM[mid + 1] < thicknessM / 2) mid++;
+  const midW = (thicknessM / 2 - tc.zM[mid]) / (tc.zM[mid + 1] - tc.zM[mid] || 1);
+
+  // Ply integration points (bottom and top face of each ply) are laminate nodes of the thermal mesh.
+  const points = tc.plyPointNode.length;
+  const pointT = new Float64Array(points);
+  const pointAlpha = new Float64Array(points);
+  const pointTg = new Float64Array(points);
+  const gatherPoints = () => {
+    for (let p = 0; p < points; p++) {
+      const j = tc.plyPointNode[p];
+      pointT[p] = tc.TK[j];
+      pointAlpha[p] = tc.alpha[j];
+      pointTg[p] = tc.tgK[j];
+    }
+  };
+  const mech = createMechanics(params, tc.plyPointZM);
+  gatherPoints();
+  primeMechanics(mech, pointT, pointAlpha, pointTg);
+
+  const tracker = createMetricsTracker(tc.zM, params.resin.gelPoint, tc.glassTransition, tc.TK, tc.alpha, 0, air0.setpointK);
+  const expectedSteps = Math.ceil(scheduledDurationS(program) / Math.min(limits.maxStepS, 30)) + 64;
+  const rec = createRecorder(expectedSteps, options.recordProfiles ? nodes : 0);
+
+  const record = (tS: number, airK: number, toolAirK: number, pressurePa: number, setpointK: number) => {
+    const i = nextRow(rec);
+    const s = rec.series;
+    const T = tc.TK;
+    const a = tc.alpha;
+    let aMin = a[0];
+    let aMax = a[0];
+    for (let j = 1; j < nodes; j++) {
+      if (a[j] < aMin) aMin = a[j];
+      if (a[j] > aMax) aMax = a[j];
+    }
+    const midT = T[mid] + midW * (T[mid + 1] - T[mid]);
+    const midAlpha = a[mid] + midW * (a[mid + 1] - a[mid]);
+    const midTg = glassTransitionK(midAlpha, tc.glassTransition);
+    s.timeS[i] = tS;
+    s.airK[i] = airK;
+    s.pressurePa[i] = pressurePa;
+    s.toolK[i] = hasTool ? tc.allTK[0] : toolAirK;
+    s.bagSurfaceK[i] = T[last];
+    s.midPlaneK[i] = midT;
+    s.toolSideSurfaceK[i] = T[0];
+    s.alphaMin[i] = aMin;
+    s.alphaMax[i] = aMax;
+    s.tgMidK[i] = midTg;
+    s.resinModulusMidPa[i] = resinModulusPa(mech, midT, midAlpha, midTg);
+    s.setpointK[i] = setpointK;
+    if (rec.width > 0) {
+      rec.profileT.set(T, i * nodes);
+      rec.profileAlpha.set(a, i * nodes);
+    }
+  };
+  record(0, air0.airK, air0.toolAirK, air0.pressurePa, air0.setpointK);
+
+  // --- the loop ---
+  let t = 0;
+  let steps = 0;
+  let naturalDt = limits.maxStepS;
+  let partRate = 0; // fastest part temperature change of the last step, K/s
+  while (!cycle.done) {
+    if (steps >= MAX_STEPS) throw new Error(`simulate: gave up after ${MAX_STEPS} steps at t = ${t} s (step control failed)`);
+    // Predict the step from the limits (physics.md §1); a step may at most double the last unclipped one.
+    let dt = Math.min(limits.maxStepS, 2 * naturalDt);
+    const airRate = airRateKPerS(program, cycle);
+    if (airRate > 0) dt = Math.min(dt, limits.maxAirChangeK / airRate);
+    const cureRate = maxCureRate(tc);
+    if (cureRate > 0) dt = Math.min(dt, limits.maxCureChange / cureRate);
+    if (partRate > 0) dt = Math.min(dt, limits.maxPartChangeK / partRate);
+    naturalDt = dt;
+    // Land exactly on the next event; avoid leaving a sliver just before it.
+    const event = nextEventS(program, cycle);
+    const remaining = event - t;
+    let tNext: number;
+    if (dt >= remaining - TIME_EPS_S) {
+      dt = remaining;
+      tNext = event;
+    } else {
+      if (dt > 0.5 * remaining) dt = 0.5 * remaining;
+      tNext = t + dt;
+    }
+    const air = airAt(program, cycle, tNext);
+    advanceThermochemical(tc, dt, air.airK, air.toolAirK);
+    t = tNext;
+    steps++;
+    partRate = tc.lastStep.maxDeltaTK / dt;
+
+    gatherPoints();
+    mechanicsStep(mech, pointT, pointAlpha, pointTg, dt);
+
+    let minT = tc.TK[0];
+    let maxT = tc.TK[0];
+    for (let j = 1; j < nodes; j++) {
+      const T = tc.TK[j];
+      if (T < minT) minT = T;
+      if (T > maxT) maxT = T;
+    }
+    observeStep(tracker, t, tc.TK, tc.alpha, 0, air.setpointK);
+    record(t, air.airK, air.toolAirK, air.pressurePa, air.setpointK);
+    advanceCycle(program, cycle, t, minT, maxT);
+  }
+
+  // --- demould and results ---
+  demould(mech, pointT, pointAlpha, pointTg);
+  const mr = mechanicsResult(mech, params);
+  const warnings: string[] = [];
+  if (program.kind === 'segments') {
+    for (const i of cycle.waitTimeouts) {
+      const seg = program.segments[i];
+      warnings.push(
+        `cycle.segments.${i}: the part did not enter the ±${seg.bandK} °C hold band within 24 h; the hold clock started anyway`,
+      );
+    }
+  }
+  if (tc.energy.relativeError > ENERGY_WARNING) {
+    warnings.push(`energy balance closes to ${(100 * tc.energy.relativeError).toFixed(2)} % only (accepted: < 0.5 %)`);
+  }
+  const summary = summarize({
+    tracker,
+    finalAlpha: tc.alpha,
+    offset: 0,
+    demouldS: t,
+    steps,
+    warpageMm: mr.warpageMm,
+    springInDeg: mr.springInDeg,
+    adiabaticRiseK: adiabaticTemperatureRiseK(params),
+    limits: params.limits,
+    warnings,
+  });
+
+  const n = rec.length;
+  const history = {} as SimulationResult['history'];
+  for (const k of HISTORY_KEYS) history[k] = rec.series[k].slice(0, n);
+  const result: SimulationResult = {
+    modelVersion: MODEL_VERSION,
+    steps,
+    history,
+    profiles: {
+      zM: new Float64Array(tc.zM),
+      temperatureK: rec.profileT.slice(0, n * rec.width),
+      alpha: rec.profileAlpha.slice(0, n * rec.width),
+    },
+    nodes: { zM: new Float64Array(tc.zM), gelTimeS: tracker.gelTimeS, vitrificationTimeS: tracker.vitrificationTimeS },
+    plyStresses: mr.plyStresses,
+    curvature: mr.curvature,
+    segmentBoundsS: Float64Array.from(cycle.boundsS),
+    summary,
+  };
+  assertFinite(result);
+  return result;
+}
+
+/** The loop must never hand back NaN or Infinity silently: say which output went wrong. */
+function assertFinite(r: SimulationResult): void {
+  const check = (name: string, a: ArrayLike<number>) => {
+    for (let i = 0; i < a.length; i++) {
+      if (!Number.isFinite(a[i])) throw new Error(`simulate: ${name}[${i}] is ${String(a[i])} (a solver fault, please report the study)`);
+    }
+  };
+  for (const k of HISTORY_KEYS) check(`history.${k}`, r.history[k]);
+  check('plyStresses.sigma1Pa', r.plyStresses.sigma1Pa);
+  check('plyStresses.sigma2Pa', r.plyStresses.sigma2Pa);
+  check('plyStresses.tau12Pa', r.plyStresses.tau12Pa);
+  check('curvature', [r.curvature.kx, r.curvature.ky, r.curvature.kxy]);
+  const s = r.summary as unknown as Record<string, unknown>;
+  for (const [k, v] of Object.entries(s)) if (typeof v === 'number') check(`summary.${k}`, [v]);
+  for (const l of r.summary.limits) check(`summary.limits.${l.key}`, [l.value, l.limit, l.atTimeMin ?? 0, l.atZMm ?? 0]);
 }

@@ -1,0 +1,247 @@
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { parseStudy, StudyInputError, type StudyParams, type StudyParamsInput } from '../schemas/study';
+import { cToK, minToS } from '../units';
+import { expectClose } from './test-support/expect-close';
+import { aluminiumPlate, demoCarbonFibre, demoResin180, leeLoosSpringerResin, quasiIsotropic, referenceStudy } from './demo-cards';
+import { simulate, type SimulationResult } from './simulate';
+
+/** Linear interpolation of a history at time t (histories land exactly on segment ends). */
+function at(result: SimulationResult, series: Float64Array, tS: number): number {
+  const t = result.history.timeS;
+  let i = 1;
+  while (i < t.length - 1 && t[i] < tS) i++;
+  const f = (tS - t[i - 1]) / (t[i] - t[i - 1]);
+  return series[i - 1] + Math.min(1, Math.max(0, f)) * (series[i] - series[i - 1]);
+}
+
+function study(overrides: Partial<StudyParamsInput>): StudyParams {
+  return parseStudy({ ...referenceStudy(), ...overrides });
+}
+
+/** Every number in the result finite: histories, profiles, nodes, stresses, curvature, summary. */
+function expectAllFinite(r: SimulationResult): void {
+  const arrays: [string, ArrayLike<number>][] = [
+    ...Object.entries(r.history),
+    ['profiles.zM', r.profiles.zM], ['profiles.T', r.profiles.temperatureK], ['profiles.alpha', r.profiles.alpha],
+    ['nodes.zM', r.nodes.zM], ['nodes.gel', r.nodes.gelTimeS], ['nodes.vit', r.nodes.vitrificationTimeS],
+    ['sigma1', r.plyStresses.sigma1Pa], ['sigma2', r.plyStresses.sigma2Pa], ['tau12', r.plyStresses.tau12Pa],
+    ['segmentBoundsS', r.segmentBoundsS],
+  ];
+  for (const [name, a] of arrays) {
+    for (let i = 0; i < a.length; i++) if (!Number.isFinite(a[i])) throw new Error(`${name}[${i}] = ${a[i]}`);
+  }
+  for (const k of ['kx', 'ky', 'kxy'] as const) expect(Number.isFinite(r.curvature[k]), k).toBe(true);
+  const walk = (x: unknown, path: string): void => {
+    if (typeof x === 'number') {
+      if (!Number.isFinite(x)) throw new Error(`summary${path} = ${x}`);
+    } else if (x && typeof x === 'object') for (const [k, v] of Object.entries(x)) walk(v, `${path}.${k}`);
+  };
+  walk(r.summary, '');
+}
+
+describe('simulate: the reference study', () => {
+  it('runs, lands on every segment end, and returns finite, consistent arrays', () => {
+    const r = simulate(referenceStudy(), { recordProfiles: true });
+    expectAllFinite(r);
+    const n = r.history.timeS.length;
+    expect(n).toBe(r.steps + 1);
+    for (const s of Object.values(r.history)) expect(s.length).toBe(n);
+    const nodes = r.profiles.zM.length;
+    expect(r.profiles.temperatureK.length).toBe(n * nodes);
+    expect(r.plyStresses.zM.length).toBe(48);
+    // every segment boundary is a history time (the loop lands on it exactly)
+    for (const b of r.segmentBoundsS) expect(r.history.timeS.some((t) => Math.abs(t - b) < 1e-6)).toBe(true);
+    expect(r.segmentBoundsS.length).toBe(6);
+    // demould at the end of the history
+    expect(r.history.timeS[n - 1]).toBeCloseTo(r.segmentBoundsS[5], 6);
+    expect(r.summary.cycleMin).toBeCloseTo(r.segmentBoundsS[5] / 60, 6);
+    // lagging-part holds start no earlier than the clock would: cycle ≥ scheduled 300 min
+    expect(r.summary.cycleMin).toBeGreaterThanOrEqual(300 - 1e-9);
+    expect(r.summary.finalCureMin).toBeGreaterThan(0.8);
+    expect(r.summary.limits.map((l) => l.key)).toEqual([
+      'minFinalCure', 'maxOvershootC', 'maxGradientC', 'maxHeatRateCPerMin', 'maxCoolRateCPerMin', 'maxWarpageMm', 'maxSpringInDeg', 'maxCycleMin',
+    ]);
+    // α never decreases, at any node
+    for (let s = 1; s < n; s++) {
+      for (let j = 0; j < nodes; j++) expect(r.profiles.alpha[s * nodes + j]).toBeGreaterThanOrEqual(r.profiles.alpha[(s - 1) * nodes + j]);
+    }
+  });
+
+  it('refuses invalid input with StudyInputError naming the field', () => {
+    const bad = structuredClone(referenceStudy()) as any;
+    bad.layup.plies[0].thicknessMm = -1;
+    expect(() => simulate(bad)).toThrow(StudyInputError);
+    expect(() => simulate(bad)).toThrow(/layup\.plies\.0\.thicknessMm/);
+  });
+
+  it('returns fresh typed arrays on every call', () => {
+    const p = referenceStudy();
+    const a = simulate(p);
+    const b = simulate(p);
+    expect(a.history.timeS).not.toBe(b.history.timeS);
+    expect(Array.from(a.history.midPlaneK)).toEqual(Array.from(b.history.midPlaneK));
+  });
+});
+
+describe('simulate: Lee–Loos–Springer two-dwell cycle, thin part following the air', () => {
+  it('matches the reference α at 36.4, 96.4, 120.8, 150.8 and 240.8 min within 0.5 %', () => {
+    // Check values: physics.md §8, computed with SciPy LSODA (rtol 1e-10) from the constants of
+    // Lee, Loos & Springer, J. Compos. Mater. 16 (1982): 25 °C, 2.5 °C/min → 116 °C, 60 min,
+    // 2.5 °C/min → 177 °C, 120 min. A single 0.1 mm ply with h = 5000 W/(m²K) on both faces and no tool
+    // follows the air within a few hundredths of a kelvin, so it stands in for the isothermal-with-air ODE.
+    const p = study({
+      resin: leeLoosSpringerResin(),
+      layup: { plies: [{ angleDeg: 0, thicknessMm: 0.1 }] },
+      tool: { kind: 'none' },
+      constraint: 'free',
+      heatTransfer: { bagSideWPerM2K: 5000, toolSideWPerM2K: 5000 },
+      cycle: {
+        kind: 'segments',
+        startC: 25,
+        segments: [
+          { kind: 'ramp', rateCPerMin: 2.5, targetC: 116, pressureBar: 6 },
+          { kind: 'hold', holdMin: 60, pressureBar: 6, start: 'clock', bandC: 5 },
+          { kind: 'ramp', rateCPerMin: 2.5, targetC: 177, pressureBar: 6 },
+          { kind: 'hold', holdMin: 120, pressureBar: 6, start: 'clock', bandC: 5 },
+          { kind: 'cool', rateCPerMin: 3, targetC: 60, pressureBar: 6 },
+        ],
+      },
+    });
+    const r = simulate(p);
+    const expected: [number, number][] = [[36.4, 0.0685], [96.4, 0.2825], [120.8, 0.5607], [150.8, 0.9104], [240.8, 0.9992]];
+    for (const [tMin, alpha] of expected) {
+      expectClose(at(r, r.history.alphaMin, minToS(tMin)), alpha, 0.005);
+      expectClose(at(r, r.history.alphaMax, minToS(tMin)), alpha, 0.005);
+    }
+    // and the part did follow the air
+    let worst = 0;
+    for (let i = 0; i < r.history.timeS.length; i++) worst = Math.max(worst, Math.abs(r.history.midPlaneK[i] - r.history.airK[i]));
+    expect(worst).toBeLessThan(0.5);
+  });
+});
+
+describe('simulate: exotherm of thick sections', () => {
+  it('a 25 mm laminate on a fast ramp overshoots the set point; a 2 mm one does not', () => {
+    // Common practice, no source: thick sections cannot shed the reaction heat on a fast single ramp, so the
+    // centre runs away above the dwell temperature; thin skins follow the air.
+    const fastCycle = {
+      kind: 'segments' as const,
+      startC: 20,
+      segments: [
+        { kind: 'ramp' as const, rateCPerMin: 5, targetC: 180, pressureBar: 7 },
+        { kind: 'hold' as const, holdMin: 120, pressureBar: 7, start: 'clock' as const, bandC: 5 },
+        { kind: 'cool' as const, rateCPerMin: 3, targetC: 60, pressureBar: 7 },
+      ],
+    };
+    const ply = (n: number, t: number) => Array.from({ length: n }, (_, i) => ({ angleDeg: [0, 45, -45, 90][i % 4], thicknessMm: t }));
+    const thick = simulate(study({ layup: { plies: ply(125, 0.2) }, cycle: fastCycle }));
+    const thin = simulate(study({ layup: { plies: ply(10, 0.2) }, cycle: fastCycle }));
+    expect(thick.summary.peakOvershootC).toBeGreaterThan(10);
+    expect(thin.summary.peakOvershootC).toBeLessThan(3);
+    // the adiabatic rise bounds what any section can reach: ΔT_ad = (1−Vf)ρ_r H_R/(ρc_p) (physics.md §3)
+    expect(thick.summary.peakPartC).toBeLessThan(180 + thick.summary.adiabaticRiseC);
+    expect(thick.summary.peakOvershootZMm).toBeGreaterThan(2);
+  });
+});
+
+describe('simulate: step-size convergence', () => {
+  it('halving the step limits shrinks the change in results by the expected order', () => {
+    // Expected order: Crank–Nicolson in time with the cure integrated at the step-midpoint temperature is
+    // second order (Crank & Nicolson, Proc. Camb. Phil. Soc. 43, 1947), so each halving of every step limit
+    // should shrink the change about 4× (Richardson's argument: log2 ratio ≈ 2). Clock-started holds keep the
+    // schedule fixed; values are read at segment ends, where every run lands exactly.
+    const ref = structuredClone(referenceStudy());
+    if (ref.cycle.kind === 'segments') for (const s of ref.cycle.segments) if (s.kind === 'hold') s.start = 'clock';
+    const p = parseStudy({ ...ref, layup: { plies: quasiIsotropic(16) } });
+    const run = (f: number) =>
+      simulate(p, { stepLimits: { maxAirChangeK: 1 * f, maxCureChange: 0.005 * f, maxPartChangeK: 2 * f, maxStepS: 60 * f } });
+    const atBoundary = (r: SimulationResult, series: Float64Array, tMin: number) => {
+      const i = r.history.timeS.findIndex((t) => Math.abs(t - minToS(tMin)) < 1e-6);
+      expect(i).toBeGreaterThan(0);
+      return series[i];
+    };
+    const runs = [run(1), run(0.5), run(0.25)];
+    expect(runs[1].steps).toBeGreaterThan(1.8 * runs[0].steps);
+    const probes = [
+      (r: SimulationResult) => atBoundary(r, r.history.alphaMin, 50), // end of the first ramp
+      (r: SimulationResult) => atBoundary(r, r.history.midPlaneK, 140), // end of the second ramp
+    ];
+    for (const probe of probes) {
+      const [a, b, c] = runs.map(probe);
+      const d1 = Math.abs(a - b);
+      const d2 = Math.abs(b - c);
+      expect(d1).toBeLessThan(1e-3 * Math.abs(a));
+      const order = Math.log2(d1 / d2);
+      expect(order).toBeGreaterThan(1.4);
+      expect(order).toBeLessThan(2.6);
+    }
+  });
+});
+
+describe('simulate: thousands of random valid inputs', () => {
+  it('every output number is finite and α never decreases', () => {
+    const plyArb = fc.record({
+      angleDeg: fc.integer({ min: -90, max: 90 }),
+      thicknessMm: fc.double({ min: 0.05, max: 1.0, noNaN: true }),
+    });
+    const input = fc.record({
+      plies: fc.array(plyArb, { minLength: 1, maxLength: 4 }),
+      vf: fc.double({ min: 0.3, max: 0.75, noNaN: true }),
+      tool: fc.constantFrom('none', 'alu', 'thin'),
+      held: fc.boolean(),
+      hBag: fc.double({ min: 1, max: 5000, noNaN: true }),
+      hTool: fc.double({ min: 1, max: 5000, noNaN: true }),
+      nodesPerPly: fc.integer({ min: 2, max: 3 }),
+      startC: fc.double({ min: 15, max: 40, noNaN: true }),
+      rampRate: fc.double({ min: 0.5, max: 20, noNaN: true }),
+      dwellC: fc.double({ min: 60, max: 230, noNaN: true }),
+      holdMin: fc.double({ min: 0.1, max: 30, noNaN: true }),
+      lagging: fc.boolean(),
+      coolRate: fc.double({ min: 0.5, max: 20, noNaN: true }),
+      demouldC: fc.double({ min: 20, max: 55, noNaN: true }),
+      model: fc.constantFrom('prony', 'chile'),
+      kinetics: fc.constantFrom('demo', 'lls', 'nth'),
+      heatKJ: fc.double({ min: 0, max: 800, noNaN: true }),
+    });
+    fc.assert(
+      fc.property(input, (x) => {
+        const resin = x.kinetics === 'lls' ? leeLoosSpringerResin() : demoResin180();
+        if (x.kinetics === 'nth') resin.kinetics = { form: 'nth-order', aPerS: 5e5, eJPerMol: 70_000, n: 1.4 };
+        resin.heatOfReactionKJPerKg = x.heatKJ;
+        resin.modulus.model = x.model;
+        const p = parseStudy({
+          ...referenceStudy(),
+          resin,
+          fibre: demoCarbonFibre(),
+          fibreVolumeFraction: x.vf,
+          layup: { plies: x.plies },
+          tool: x.tool === 'none' ? { kind: 'none' } : aluminiumPlate(x.tool === 'thin' ? 0.5 : 10),
+          constraint: x.held && x.tool !== 'none' ? 'tool-held' : 'free',
+          heatTransfer: { bagSideWPerM2K: x.hBag, toolSideWPerM2K: x.hTool },
+          mesh: { nodesPerPly: x.nodesPerPly },
+          cycle: {
+            kind: 'segments',
+            startC: x.startC,
+            segments: [
+              { kind: 'ramp', rateCPerMin: x.rampRate, targetC: x.dwellC, pressureBar: 7 },
+              { kind: 'hold', holdMin: x.holdMin, pressureBar: 7, start: x.lagging ? 'lagging-part' : 'clock', bandC: 5 },
+              { kind: 'cool', rateCPerMin: x.coolRate, targetC: x.demouldC, pressureBar: 0 },
+            ],
+          },
+        });
+        const r = simulate(p, { recordProfiles: true });
+        expectAllFinite(r);
+        const nodes = r.profiles.zM.length;
+        const a = r.profiles.alpha;
+        for (let i = nodes; i < a.length; i++) if (a[i] < a[i - nodes]) throw new Error(`α fell at node ${i % nodes}`);
+        for (let i = 0; i < a.length; i++) if (a[i] < 0 || a[i] >= 1) throw new Error(`α out of [0,1): ${a[i]}`);
+        const h = r.history;
+        for (let i = 1; i < h.alphaMin.length; i++) if (h.alphaMin[i] < h.alphaMin[i - 1]) throw new Error('alphaMin fell');
+        expect(r.summary.cycleMin * 60).toBeCloseTo(h.timeS[h.timeS.length - 1], 6);
+        expect(h.setpointK[0]).toBeCloseTo(cToK(x.startC), 9);
+      }),
+      { numRuns: 1000 },
+    );
+  }, 120_000);
+});
