@@ -171,6 +171,11 @@ function rateAt(k: PreparedKinetics, K1: number, K2: number, K3: number, centre:
   return r;
 }
 
+/** A e^(−E/RT), skipping the exponential for a term the form does not use. */
+function arrhenius(a: number, eOverR: number, TK: number): number {
+  return a === 0 ? 0 : a * Math.exp(-eOverR / TK);
+}
+
 /** Lee–Loos–Springer upper branch from the switch on: the switch value itself belongs to the upper branch, so a
  *  node that has landed on it moves on at the upper rate. */
 function isUpperBranch(k: PreparedKinetics, alpha: number): boolean {
@@ -179,9 +184,9 @@ function isUpperBranch(k: PreparedKinetics, alpha: number): boolean {
 
 /** Cure rate dα/dt in 1/s at degree of cure α and temperature TK (kelvin); ≥ 0 and finite. */
 export function cureRate(k: PreparedKinetics, alpha: number, TK: number): number {
-  const K1 = k.a1 * Math.exp(-k.e1OverR / TK);
-  const K2 = k.a2 * Math.exp(-k.e2OverR / TK);
-  const K3 = k.a3 * Math.exp(-k.e3OverR / TK);
+  const K1 = arrhenius(k.a1, k.e1OverR, TK);
+  const K2 = arrhenius(k.a2, k.e2OverR, TK);
+  const K3 = arrhenius(k.a3, k.e3OverR, TK);
   return rateAt(k, K1, K2, K3, k.diffusionAlphaC0 + k.diffusionAlphaCTPerK * TK, alpha, isUpperBranch(k, alpha));
 }
 
@@ -232,9 +237,9 @@ export function advanceCure(k: PreparedKinetics, alpha: number, TK: number, dtS:
   if (!(alpha >= 0 && alpha <= 1)) throw new RangeError(`advanceCure: degree of cure ${String(alpha)}: allowed 0..1`);
   let a = alpha < ALPHA_MAX ? alpha : ALPHA_MAX;
   if (dtS === 0) return a;
-  const K1 = k.a1 * Math.exp(-k.e1OverR / TK);
-  const K2 = k.a2 * Math.exp(-k.e2OverR / TK);
-  const K3 = k.a3 * Math.exp(-k.e3OverR / TK);
+  const K1 = arrhenius(k.a1, k.e1OverR, TK);
+  const K2 = arrhenius(k.a2, k.e2OverR, TK);
+  const K3 = arrhenius(k.a3, k.e3OverR, TK);
   const centre = k.diffusionAlphaC0 + k.diffusionAlphaCTPerK * TK;
   const lls = k.formCode === LEE_LOOS_SPRINGER;
   let upper = isUpperBranch(k, a);

@@ -10,9 +10,11 @@ import { advanceCure, cureRate, initialDegreeOfCure, prepareKinetics, type Prepa
 // the cure at every node over the whole step at the θ-weighted temperature T_θ = (1 − θ)Tⁿ + θTⁿ⁺¹ (the
 // step midpoint for Crank–Nicolson, so the coupling keeps the scheme's second order; splitting would drop it to
 // first), turns each node's cure increment into the exact heat released over the step, ρ_r(1 − V_f)H_R·Δα·V,
-// and solves the column with it. It stops when Tⁿ⁺¹ moves less than 1 mK between passes. The first pass starts
-// from Tⁿ⁺¹ extrapolated from the last step, so a smooth step usually needs one pass to converge and one to
-// confirm. Because the source is exactly the heat of the cure increments used, the energy balance closes to
+// and solves the column with it. It stops when the temperature that fed the cure is close enough to the one
+// that came out that the cure increment would change by less than 1e-7 (bounded through the largest activation
+// energy: δ(Δα) ≈ Δα·θ·(E_max/RT² + C|α_CT|)·δT), and never before that temperature is within 1 K. A step
+// with no cure to speak of is therefore done after one pass; the first pass starts from Tⁿ⁺¹ extrapolated
+// from the last step, so a reacting step usually needs two. Because the source is exactly the heat of the cure increments used, the energy balance closes to
 // rounding for any number of passes. If the passes do not settle (a step far too long for a runaway exotherm),
 // the step is split in halves internally, so the caller never sees an unconverged state.
 
@@ -166,7 +168,10 @@ export function createThermochemical(p: ThermochemicalParams, options: Thermoche
   };
 }
 
-const CONVERGED_K = 1e-3;
+/** Largest change of a node's cure increment that the coupling passes may leave unresolved. */
+const COUPLING_ALPHA_TOL = 1e-7;
+/** ...and the temperature fed to the cure must be this close to the result whatever the cure. */
+const COUPLING_MAX_K = 1;
 const MAX_PASSES = 12;
 const MAX_SPLIT_DEPTH = 12;
 
@@ -210,26 +215,39 @@ function tryStep(s: ThermochemicalState, dtS: number, airK: number, toolAirK: nu
   const w = s.work.prevDtS > 0 ? dtS / s.work.prevDtS : 0;
   for (let i = 0; i < n; i++) TGuess[i] = TOld[i] + w * (TOld[i] - TPrev[i]);
   const qPerAlpha = s.reactionEnergyJPerM3;
+  // d ln(Δα)/dT bound per kelvin, without the 1/T² of the Arrhenius part (applied per node).
+  const eMaxOverR = Math.max(k.a1 !== 0 ? k.e1OverR : 0, k.a2 !== 0 ? k.e2OverR : 0, k.a3 !== 0 ? k.e3OverR : 0);
+  const diffusionSens = k.hasDiffusion ? k.diffusionC * Math.abs(k.diffusionAlphaCTPerK) : 0;
   let passes = 0;
   let converged = false;
   for (passes = 1; passes <= MAX_PASSES; passes++) {
     for (let j = 0; j < nLam; j++) {
       const Tk = (1 - theta) * TOld[off + j] + theta * TGuess[off + j];
-      // A node whose kinetic temperature did not move since the last pass keeps its cure increment.
-      if (passes > 1 && Tk === TKin[j]) continue;
+      if (passes > 1) {
+        // A node whose kinetic temperature barely moved since the last pass keeps its cure increment.
+        const sens = eMaxOverR / (Tk * Tk) + diffusionSens;
+        if (Math.abs(Tk - TKin[j]) * sens * (alphaNew[j] - alphaOld[j]) < 1e-3 * COUPLING_ALPHA_TOL) continue;
+      }
       TKin[j] = Tk;
       alphaNew[j] = advanceCure(k, alphaOld[j], Tk, dtS);
       source[off + j] = qPerAlpha * nodeLaminateM[j] * (alphaNew[j] - alphaOld[j]);
     }
     heatStep(column, TOld, TNew, dtS, theta, s.toolAirK, toolAirK, s.airK, airK, source, heat);
-    let change = 0;
+    let worstT = 0;
+    let worstAlpha = 0;
     for (let i = 0; i < n; i++) {
       const d = Math.abs(TNew[i] - TGuess[i]);
-      if (d > change) change = d;
+      if (d > worstT) worstT = d;
+      if (i >= off) {
+        const j = i - off;
+        const sens = eMaxOverR / (TKin[j] * TKin[j]) + diffusionSens;
+        const da = theta * d * sens * (alphaNew[j] - alphaOld[j]);
+        if (da > worstAlpha) worstAlpha = da;
+      }
       TGuess[i] = TNew[i];
     }
-    if (!Number.isFinite(change)) break;
-    if (change < CONVERGED_K) {
+    if (!Number.isFinite(worstT)) break;
+    if (worstAlpha < COUPLING_ALPHA_TOL && worstT < COUPLING_MAX_K) {
       converged = true;
       break;
     }
