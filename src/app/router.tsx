@@ -10,6 +10,7 @@ export const router = createBrowserRouter([
     element: <AppShell />,
     children: [
       { index: true, element: <HomeRoute /> },
+      { path: 'studies/:studyId', lazy: () => import('./routes/study-workspace') },
       { path: '*', element: <NotFoundRoute /> },
     ],
   },

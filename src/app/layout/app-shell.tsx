@@ -4,7 +4,10 @@ import { HealthBadge } from '../../features/health/components/health-badge';
 
 export type NavItem = { to: string; label: string };
 
-const navItems: NavItem[] = [{ to: '/', label: 'Home' }];
+const navItems: NavItem[] = [
+  { to: '/', label: 'Home' },
+  { to: '/studies/demo', label: 'Reference study' },
+];
 
 export function AppShell({ extraNav = [] }: { extraNav?: NavItem[] }) {
   return (

@@ -1,0 +1,79 @@
+import { area, line } from 'd3-shape';
+
+type Numeric = ArrayLike<number>;
+
+/**
+ * Indices to draw for a series of `n` points on about `columns` pixels: every
+ * point when it fits, else the first, the lowest and highest of each bucket
+ * (in time order) and the last, so peaks such as an exotherm survive.
+ */
+export function drawIndices(ys: Numeric, columns: number): number[] {
+  const n = ys.length;
+  const budget = Math.max(2, Math.floor(columns) * 2);
+  if (n <= budget) return Array.from({ length: n }, (_, i) => i);
+  const buckets = Math.floor(budget / 2);
+  const size = n / buckets;
+  const out: number[] = [0];
+  for (let b = 0; b < buckets; b++) {
+    const from = Math.floor(b * size);
+    const to = Math.min(n, Math.floor((b + 1) * size));
+    let lo = from;
+    let hi = from;
+    for (let i = from + 1; i < to; i++) {
+      if (ys[i] < ys[lo]) lo = i;
+      if (ys[i] > ys[hi]) hi = i;
+    }
+    if (lo <= hi) out.push(lo, hi);
+    else out.push(hi, lo);
+  }
+  out.push(n - 1);
+  return out.filter((v, i, a) => i === 0 || v > a[i - 1]);
+}
+
+/** SVG path of ys against xs through pixel mappings (d3-shape line). */
+export function seriesPath(
+  xs: Numeric,
+  ys: Numeric,
+  toX: (v: number) => number,
+  toY: (v: number) => number,
+  columns: number,
+): string {
+  const indices = drawIndices(ys, columns);
+  return line<number>()
+    .x((i) => toX(xs[i]))
+    .y((i) => toY(ys[i]))(indices) ?? '';
+}
+
+/** SVG path of the band between two series (d3-shape area). */
+export function bandPath(
+  xs: Numeric,
+  lower: Numeric,
+  upper: Numeric,
+  toX: (v: number) => number,
+  toY: (v: number) => number,
+  columns: number,
+): string {
+  const n = xs.length;
+  const stride = Math.max(1, Math.floor(n / Math.max(2, columns)));
+  const indices: number[] = [];
+  for (let i = 0; i < n; i += stride) indices.push(i);
+  if (n > 0 && indices[indices.length - 1] !== n - 1) indices.push(n - 1);
+  return area<number>()
+    .x((i) => toX(xs[i]))
+    .y0((i) => toY(lower[i]))
+    .y1((i) => toY(upper[i]))(indices) ?? '';
+}
+
+/** Index of the last sample at or before `t` in an increasing array (0 before the start). */
+export function indexAtOrBefore(times: Numeric, t: number): number {
+  let lo = 0;
+  let hi = times.length - 1;
+  if (hi < 0 || t <= times[0]) return 0;
+  if (t >= times[hi]) return hi;
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >> 1;
+    if (times[mid] <= t) lo = mid;
+    else hi = mid;
+  }
+  return lo;
+}

@@ -1,0 +1,446 @@
+import { memo, useMemo, useRef, useState, type KeyboardEvent, type PointerEvent as ReactPointerEvent } from 'react';
+import { produce } from 'immer';
+import { scaleLinear, type ScaleLinear } from 'd3-scale';
+import type { StudyParams } from '../../../../../shared/schemas/study';
+import { TimeTicks, ValueTicks, useTimeAxis } from '../../../../components/charts/time-axis';
+import { seriesPath } from '../../../../components/charts/series-path';
+import { cycleSpans, cycleVertices, type SegmentSpan } from '../../model/cycle-geometry';
+import { handleEdit, handleId, segmentNames, type CycleHandle, type HandleDelta } from '../../model/cycle-handles';
+import { issuesUnder } from '../../model/study-validation';
+import { studyEditorStore, useStudyEditor } from '../../stores/study-editor-store';
+import { resultsStore, useResults } from '../../stores/results-store';
+import type { SimulationResult } from '../../model/simulation-result';
+
+const K0 = 273.15;
+const PLOT_TOP = 14;
+/** Pointer travel before a ramp-end drag decides whether it moves in time (rate) or temperature (target). */
+const AXIS_LOCK_PX = 4;
+
+type DragState = {
+  handle: CycleHandle;
+  original: StudyParams;
+  startX: number;
+  startY: number;
+  axis: 'x' | 'y' | null;
+  key: string;
+};
+
+let gestureCounter = 0;
+
+/** Keys for handles: arrows move by 1 (°C or min), Shift by 10. */
+function keyDelta(e: KeyboardEvent): HandleDelta | null {
+  const step = e.shiftKey ? 10 : 1;
+  switch (e.key) {
+    case 'ArrowUp':
+      return { minutes: 0, celsius: step, axis: 'y' };
+    case 'ArrowDown':
+      return { minutes: 0, celsius: -step, axis: 'y' };
+    case 'ArrowRight':
+      return { minutes: step, celsius: 0, axis: 'x' };
+    case 'ArrowLeft':
+      return { minutes: -step, celsius: 0, axis: 'x' };
+    default:
+      return null;
+  }
+}
+
+/** Paths of the cycle's issues the edit would add; an edit that adds any is refused. */
+function newCycleIssues(before: StudyParams, after: StudyParams): string | null {
+  const had = new Set(issuesUnder(before, 'cycle').map((i) => i.path));
+  const added = issuesUnder(after, 'cycle').find((i) => !had.has(i.path));
+  return added ? added.message : null;
+}
+
+export function CycleEditor({
+  height = 230,
+  temperatureDomainC,
+}: {
+  height?: number;
+  /** fixes the temperature scale (tests); otherwise it follows the cycle and the results */
+  temperatureDomainC?: [number, number];
+}) {
+  const axis = useTimeAxis();
+  const params = useStudyEditor((s) => s.params);
+  const result = useResults((s) => s.result);
+  const [refusal, setRefusal] = useState<string | null>(null);
+  const [dragging, setDragging] = useState<string | null>(null);
+  const drag = useRef<DragState | null>(null);
+  const frozenDomain = useRef<[number, number] | null>(null);
+  const plotHeight = height - PLOT_TOP - 30;
+
+  const cycle = params?.cycle;
+  const spans = useMemo(() => (cycle?.kind === 'segments' ? cycleSpans(cycle.startC, cycle.segments) : []), [cycle]);
+  const names = useMemo(() => (cycle?.kind === 'segments' ? segmentNames(cycle.segments) : []), [cycle]);
+
+  const domain = useMemo((): [number, number] => {
+    if (temperatureDomainC) return temperatureDomainC;
+    let hi = 0;
+    let lo = 0;
+    for (const s of spans) hi = Math.max(hi, s.startC, s.endC);
+    for (const s of spans) lo = Math.min(lo, s.startC, s.endC);
+    if (result) {
+      const mid = result.history.midPlaneK;
+      for (let i = 0; i < mid.length; i++) hi = Math.max(hi, mid[i] - K0);
+    }
+    const next: [number, number] = [Math.floor(lo / 50) * 50, Math.ceil((hi + 25) / 50) * 50];
+    // Hold the scale still under a dragging pointer; only grow it when a handle would leave the plot.
+    if (dragging && frozenDomain.current) {
+      return [Math.min(frozenDomain.current[0], next[0]), Math.max(frozenDomain.current[1], next[1])];
+    }
+    return next;
+  }, [spans, result, dragging, temperatureDomainC]);
+  frozenDomain.current = domain;
+
+  const y = useMemo(() => scaleLinear().domain(domain).range([plotHeight, 0]), [domain, plotHeight]);
+
+  if (!params || !cycle) return null;
+  if (cycle.kind !== 'segments') {
+    return (
+      <p className="p-3 text-sm text-ink-soft">
+        This study follows a recorded cycle; its points are edited in the table. The line editor works on ramp, dwell
+        and cool segments.
+      </p>
+    );
+  }
+
+  const pxPerMin = axis.x(1) - axis.x(0);
+  const pxPerC = y(0) - y(1);
+
+  function apply(handle: CycleHandle, original: StudyParams, delta: HandleDelta, key: string, gesture: boolean) {
+    const edit = handleEdit(original, handle, delta);
+    if (!edit.ok) {
+      setRefusal(edit.reason);
+      return;
+    }
+    const current = studyEditorStore.getState().params!;
+    const candidate = produce(current, edit.recipe);
+    const problem = newCycleIssues(current, candidate);
+    if (problem) {
+      setRefusal(`Not applied: ${problem}`);
+      return;
+    }
+    setRefusal(null);
+    studyEditorStore.getState().edit(edit.label, edit.recipe, { coalesceKey: key, gesture });
+  }
+
+  function onHandlePointerDown(e: ReactPointerEvent<SVGGElement>, handle: CycleHandle) {
+    if (e.button !== 0) return;
+    e.preventDefault();
+    e.stopPropagation();
+    (e.currentTarget as Element & { focus?: () => void }).focus?.();
+    gestureCounter += 1;
+    drag.current = {
+      handle,
+      original: studyEditorStore.getState().params!,
+      startX: e.clientX,
+      startY: e.clientY,
+      axis: handle.kind === 'ramp-end' ? null : handle.kind === 'dwell-end' ? 'x' : 'y',
+      key: `drag-${gestureCounter}`,
+    };
+    setDragging(handleId(handle));
+    resultsStore.getState().setDragging(true);
+
+    const onMove = (ev: PointerEvent) => {
+      const d = drag.current;
+      if (!d) return;
+      const dx = ev.clientX - d.startX;
+      const dy = ev.clientY - d.startY;
+      if (d.axis === null) {
+        if (Math.max(Math.abs(dx), Math.abs(dy)) < AXIS_LOCK_PX) return;
+        d.axis = Math.abs(dx) >= Math.abs(dy) ? 'x' : 'y';
+      }
+      apply(d.handle, d.original, { minutes: dx / pxPerMin, celsius: -dy / pxPerC, axis: d.axis }, d.key, true);
+    };
+    const onUp = () => {
+      drag.current = null;
+      setDragging(null);
+      resultsStore.getState().setDragging(false);
+      window.removeEventListener('pointermove', onMove);
+      window.removeEventListener('pointerup', onUp);
+      window.removeEventListener('pointercancel', onUp);
+    };
+    window.addEventListener('pointermove', onMove);
+    window.addEventListener('pointerup', onUp);
+    window.addEventListener('pointercancel', onUp);
+  }
+
+  function onHandleKeyDown(e: KeyboardEvent<SVGGElement>, handle: CycleHandle) {
+    const delta = keyDelta(e);
+    if (!delta) return;
+    e.preventDefault();
+    if (handle.kind === 'dwell-end' && delta.axis !== 'x') return;
+    if (handle.kind === 'dwell-level' && delta.axis !== 'y') return;
+    apply(handle, studyEditorStore.getState().params!, delta, `keys-${handleId(handle)}`, false);
+  }
+
+  function onPlotPointerDown(e: ReactPointerEvent<SVGRectElement>) {
+    const rect = e.currentTarget.getBoundingClientRect();
+    resultsStore.getState().scrubTo(axis.x.invert(e.clientX - rect.left));
+  }
+
+  const vertices = cycleVertices(cycle.startC, spans);
+  const setpointD = vertices.map((v, i) => `${i ? 'L' : 'M'}${axis.x(v.timeMin)},${y(v.tempC)}`).join('');
+
+  return (
+    <div className="relative">
+      <svg
+        width={axis.width}
+        height={height}
+        role="group"
+        aria-label="Cure cycle: set point against time, with draggable handles"
+        className="block touch-none select-none"
+        data-testid="cycle-editor"
+      >
+        <g transform={`translate(${axis.marginLeft},${PLOT_TOP})`}>
+          <ValueTicks y={y} width={axis.plotWidth} unit="°C" />
+          <TimeTicks height={plotHeight} />
+          <rect
+            width={axis.plotWidth}
+            height={plotHeight}
+            fill="transparent"
+            onPointerDown={onPlotPointerDown}
+            data-testid="cycle-plot"
+          />
+          <SegmentBands spans={spans} x={axis.x} height={plotHeight} />
+          {result && <ThermalTraces result={result} x={axis.x} y={y} columns={axis.plotWidth} />}
+          <path d={setpointD} fill="none" stroke="var(--color-ink)" strokeWidth={1.6} strokeDasharray="6 3" />
+          <ScrubLine x={axis.x} height={plotHeight} />
+          {spans.map((span) => (
+            <SpanHandles
+              key={span.index}
+              span={span}
+              name={names[span.index]}
+              x={axis.x}
+              y={y}
+              dragging={dragging}
+              rate={(cycle.segments[span.index] as { rateCPerMin?: number }).rateCPerMin}
+              onPointerDown={onHandlePointerDown}
+              onKeyDown={onHandleKeyDown}
+            />
+          ))}
+        </g>
+      </svg>
+      <ThermalLegend />
+      <p role="status" aria-live="polite" className="min-h-5 px-2 text-xs text-fault" data-testid="cycle-refusal">
+        {refusal}
+      </p>
+    </div>
+  );
+}
+
+function SegmentBands({ spans, x, height }: { spans: SegmentSpan[]; x: ScaleLinear<number, number>; height: number }) {
+  return (
+    <g aria-hidden>
+      {spans
+        .filter((s) => s.kind === 'hold')
+        .map((s) => (
+          <rect
+            key={s.index}
+            x={x(s.startMin)}
+            width={Math.max(0, x(s.endMin) - x(s.startMin))}
+            y={0}
+            height={height}
+            fill="var(--color-saffron-soft)"
+            opacity={0.45}
+            pointerEvents="none"
+          />
+        ))}
+    </g>
+  );
+}
+
+const TRACES: { key: keyof SimulationResult['history']; label: string; colour: string; width: number; dash?: string }[] = [
+  { key: 'airK', label: 'air', colour: 'var(--color-ember)', width: 1.2 },
+  { key: 'toolK', label: 'tool', colour: 'var(--color-slate)', width: 1.2 },
+  { key: 'bagSurfaceK', label: 'part surface', colour: 'var(--color-saffron)', width: 1.3 },
+  { key: 'midPlaneK', label: 'mid-plane', colour: 'var(--color-fault)', width: 2 },
+];
+
+const ThermalTraces = memo(function ThermalTraces({
+  result,
+  x,
+  y,
+  columns,
+}: {
+  result: SimulationResult;
+  x: ScaleLinear<number, number>;
+  y: ScaleLinear<number, number>;
+  columns: number;
+}) {
+  const t = result.history.timeS;
+  const toX = (s: number) => x(s / 60);
+  const toY = (k: number) => y(k - K0);
+  return (
+    <g aria-hidden pointerEvents="none" data-testid="thermal-traces">
+      {TRACES.map((tr) => (
+        <path
+          key={tr.key}
+          d={seriesPath(t, result.history[tr.key] as Float64Array, toX, toY, columns)}
+          fill="none"
+          stroke={tr.colour}
+          strokeWidth={tr.width}
+          strokeDasharray={tr.dash}
+        />
+      ))}
+      {Array.from(result.segmentBoundsS).map((s, i) => (
+        <line key={i} x1={toX(s)} x2={toX(s)} y1={y.range()[0]} y2={y.range()[0] - 6} stroke="var(--color-ink-faint)" />
+      ))}
+    </g>
+  );
+});
+
+function ThermalLegend() {
+  return (
+    <ul className="flex flex-wrap gap-x-4 gap-y-1 px-2 text-xs text-ink-soft" aria-label="Line key">
+      <li className="flex items-center gap-1.5">
+        <svg width="18" height="6" aria-hidden>
+          <line x1="0" x2="18" y1="3" y2="3" stroke="var(--color-ink)" strokeWidth="1.6" strokeDasharray="4 2" />
+        </svg>
+        set point (drag the handles)
+      </li>
+      {TRACES.map((tr) => (
+        <li key={tr.key} className="flex items-center gap-1.5">
+          <svg width="18" height="6" aria-hidden>
+            <line x1="0" x2="18" y1="3" y2="3" stroke={tr.colour} strokeWidth={tr.width + 0.6} />
+          </svg>
+          {tr.label}
+        </li>
+      ))}
+      <li className="flex items-center gap-1.5">
+        <span aria-hidden className="inline-block h-2.5 w-4 bg-saffron-soft" /> dwell
+      </li>
+    </ul>
+  );
+}
+
+export function ScrubLine({ x, height }: { x: ScaleLinear<number, number>; height: number }) {
+  const scrubMin = useResults((s) => s.scrubMin);
+  return (
+    <line
+      aria-hidden
+      x1={x(scrubMin)}
+      x2={x(scrubMin)}
+      y1={0}
+      y2={height}
+      stroke="var(--color-ink)"
+      strokeWidth={1}
+      opacity={0.55}
+      pointerEvents="none"
+    />
+  );
+}
+
+type HandleProps = {
+  span: SegmentSpan;
+  name: string;
+  x: ScaleLinear<number, number>;
+  y: ScaleLinear<number, number>;
+  dragging: string | null;
+  rate: number | undefined;
+  onPointerDown: (e: ReactPointerEvent<SVGGElement>, h: CycleHandle) => void;
+  onKeyDown: (e: KeyboardEvent<SVGGElement>, h: CycleHandle) => void;
+};
+
+/** Handle shapes say which way they move: a diamond moves both ways, bars move across their length. */
+function SpanHandles({ span, name, x, y, dragging, rate, onPointerDown, onKeyDown }: HandleProps) {
+  if (span.kind === 'hold') {
+    const level: CycleHandle = { kind: 'dwell-level', index: span.index };
+    const end: CycleHandle = { kind: 'dwell-end', index: span.index };
+    const minutes = Math.round((span.endMin - span.startMin) * 10) / 10;
+    const cx = x((span.startMin + span.endMin) / 2);
+    const cy = y(span.startC);
+    return (
+      <>
+        <Handle
+          handle={level}
+          active={dragging === handleId(level)}
+          label={`${name} temperature`}
+          hint="arrow up or down changes the dwell temperature"
+          valueNow={span.startC}
+          valueText={`${span.startC} °C`}
+          onPointerDown={onPointerDown}
+          onKeyDown={onKeyDown}
+          cursor="ns-resize"
+        >
+          <rect x={cx - 11} y={cy - 4} width={22} height={8} rx={3} />
+        </Handle>
+        <Handle
+          handle={end}
+          active={dragging === handleId(end)}
+          label={`${name} end`}
+          hint="arrow left or right changes the dwell length"
+          valueNow={minutes}
+          valueText={`${minutes} min`}
+          onPointerDown={onPointerDown}
+          onKeyDown={onKeyDown}
+          cursor="ew-resize"
+        >
+          <rect x={x(span.endMin) - 4} y={cy - 11} width={8} height={22} rx={3} />
+        </Handle>
+      </>
+    );
+  }
+  const h: CycleHandle = { kind: 'ramp-end', index: span.index };
+  const px = x(span.endMin);
+  const py = y(span.endC);
+  return (
+    <Handle
+      handle={h}
+      active={dragging === handleId(h)}
+      label={`${name} end`}
+      hint="arrow up or down changes the target, left or right the rate"
+      valueNow={span.endC}
+      valueText={`${span.endC} °C at ${rate ?? '?'} °C/min`}
+      onPointerDown={onPointerDown}
+      onKeyDown={onKeyDown}
+      cursor="move"
+    >
+      <path d={`M${px},${py - 8}L${px + 8},${py}L${px},${py + 8}L${px - 8},${py}Z`} />
+    </Handle>
+  );
+}
+
+function Handle({
+  handle,
+  active,
+  label,
+  hint,
+  valueNow,
+  valueText,
+  onPointerDown,
+  onKeyDown,
+  cursor,
+  children,
+}: {
+  handle: CycleHandle;
+  active: boolean;
+  label: string;
+  hint: string;
+  valueNow: number;
+  valueText: string;
+  onPointerDown: HandleProps['onPointerDown'];
+  onKeyDown: HandleProps['onKeyDown'];
+  cursor: string;
+  children: React.ReactNode;
+}) {
+  return (
+    <g
+      role="slider"
+      tabIndex={0}
+      aria-label={label}
+      aria-description={hint}
+      aria-valuenow={valueNow}
+      aria-valuetext={valueText}
+      data-handle={handleId(handle)}
+      className="outline-none [&:focus-visible>*]:stroke-slate [&:focus-visible>*]:[stroke-width:3]"
+      style={{ cursor }}
+      fill={active ? 'var(--color-ember)' : 'var(--color-paper-raised)'}
+      stroke="var(--color-ink)"
+      strokeWidth={1.5}
+      onPointerDown={(e) => onPointerDown(e, handle)}
+      onKeyDown={(e) => onKeyDown(e, handle)}
+    >
+      {children}
+    </g>
+  );
+}

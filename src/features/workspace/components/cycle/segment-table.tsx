@@ -1,0 +1,228 @@
+import type { CycleSegment, SegmentCycle, StudyParams } from '../../../../../shared/schemas/study';
+import type { Draft } from 'immer';
+import { NumberField } from '../../../../components/ui/number-field';
+import { SelectField } from '../../../../components/ui/select-field';
+import { cycleSpans, newSegment, splitSegment } from '../../model/cycle-geometry';
+import { segmentNames } from '../../model/cycle-handles';
+import { issueAt } from '../../model/study-validation';
+import { useStudyEditor } from '../../stores/study-editor-store';
+
+type Edit = (label: string, recipe: (d: Draft<StudyParams>) => void, key?: string) => void;
+
+const holdStarts = [
+  { value: 'clock', label: 'on the clock' },
+  { value: 'lagging-part', label: 'when the coldest point is in band' },
+] as const;
+
+const addChoices = [
+  { value: '', label: 'Add after…' },
+  { value: 'ramp', label: 'ramp' },
+  { value: 'hold', label: 'dwell' },
+  { value: 'cool', label: 'cool' },
+] as const;
+
+/** Exact entry for the cycle the line editor draws: one row per segment. */
+export function SegmentTable() {
+  const params = useStudyEditor((s) => s.params);
+  const storeEdit = useStudyEditor((s) => s.edit);
+  if (!params || params.cycle.kind !== 'segments') return null;
+  const cycle = params.cycle;
+  const names = segmentNames(cycle.segments);
+  const spans = cycleSpans(cycle.startC, cycle.segments);
+  const edit: Edit = (label, recipe, key) => storeEdit(label, recipe, key ? { coalesceKey: key } : undefined);
+  const seg = (d: Draft<StudyParams>, i: number) => (d.cycle as Draft<SegmentCycle>).segments[i];
+
+  return (
+    <div className="px-2" data-testid="segment-table">
+      <div className="mb-2 flex items-end gap-3">
+        <div className="w-36">
+          <NumberField
+            label="Start temperature"
+            unit="°C"
+            value={cycle.startC}
+            issue={issueAt(params, 'cycle.startC')}
+            onCommit={(v) => edit(`Start temperature ${v} °C`, (d) => void ((d.cycle as Draft<SegmentCycle>).startC = v), 'cycle.startC')}
+          />
+        </div>
+        <p className="num pb-1 text-xs text-ink-soft">
+          cycle length {Math.round(spans.length ? spans[spans.length - 1].endMin : 0)} min (clock holds)
+        </p>
+      </div>
+      <table className="w-full border-collapse text-sm">
+        <thead>
+          <tr className="text-left text-[11px] uppercase tracking-wide text-ink-faint">
+            <th className="py-1 pr-2 font-medium">Segment</th>
+            <th className="pr-2 font-medium">Rate or length</th>
+            <th className="pr-2 font-medium">Target or start</th>
+            <th className="pr-2 font-medium">Band</th>
+            <th className="pr-2 font-medium">Pressure</th>
+            <th className="font-medium">
+              <span className="sr-only">Actions</span>
+            </th>
+          </tr>
+        </thead>
+        <tbody>
+          {cycle.segments.map((s, i) => (
+            <SegmentRow
+              key={i}
+              index={i}
+              segment={s}
+              name={names[i]}
+              startC={spans[i].startC}
+              params={params}
+              edit={edit}
+              seg={seg}
+              count={cycle.segments.length}
+            />
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+function SegmentRow({
+  index: i,
+  segment: s,
+  name,
+  startC,
+  params,
+  edit,
+  seg,
+  count,
+}: {
+  index: number;
+  segment: CycleSegment;
+  name: string;
+  startC: number;
+  params: StudyParams;
+  edit: Edit;
+  seg: (d: Draft<StudyParams>, i: number) => Draft<CycleSegment>;
+  count: number;
+}) {
+  const path = `cycle.segments.${i}`;
+  const issue = (field: string) => issueAt(params, `${path}.${field}`);
+  const kindIssue = issue('kind');
+  const set = (field: string, label: string, v: number | string) =>
+    edit(label, (d) => void ((seg(d, i) as unknown as Record<string, number | string>)[field] = v), `${path}.${field}`);
+
+  return (
+    <tr className="border-t border-rule align-top" data-testid={`segment-row-${i}`}>
+      <td className="py-1 pr-2">
+        <div className="flex items-center gap-1.5">
+          <span className="w-14 text-xs font-medium">{name}</span>
+          <SelectField
+            compact
+            label={`${name} kind`}
+            value={s.kind}
+            issue={kindIssue}
+            options={[
+              { value: 'ramp', label: 'ramp' },
+              { value: 'hold', label: 'dwell' },
+              { value: 'cool', label: 'cool' },
+            ]}
+            onChange={(kind) =>
+              edit(`${name} becomes ${kind}`, (d) => {
+                (d.cycle as Draft<SegmentCycle>).segments[i] = newSegment(kind, startC, s.pressureBar);
+              })
+            }
+          />
+        </div>
+      </td>
+      {s.kind === 'hold' ? (
+        <>
+          <td className="py-1 pr-2">
+            <NumberField compact label={`${name} length`} unit="min" value={s.holdMin} issue={issue('holdMin')} onCommit={(v) => set('holdMin', `${name} length ${v} min`, v)} />
+          </td>
+          <td className="py-1 pr-2">
+            <SelectField
+              compact
+              label={`${name} starts`}
+              value={s.start}
+              options={holdStarts}
+              onChange={(v) => set('start', `${name} starts ${v}`, v)}
+            />
+          </td>
+          <td className="py-1 pr-2">
+            <NumberField compact label={`${name} band`} unit="±°C" value={s.bandC} issue={issue('bandC')} onCommit={(v) => set('bandC', `${name} band ${v} °C`, v)} />
+          </td>
+        </>
+      ) : (
+        <>
+          <td className="py-1 pr-2">
+            <NumberField
+              compact
+              label={`${name} rate`}
+              unit="°C/min"
+              step={0.1}
+              value={s.rateCPerMin}
+              issue={issue('rateCPerMin')}
+              testId={`segment-${i}-rate`}
+              onCommit={(v) => set('rateCPerMin', `${name} rate ${v} °C/min`, v)}
+            />
+          </td>
+          <td className="py-1 pr-2">
+            <NumberField
+              compact
+              label={s.kind === 'cool' && i === count - 1 ? `${name} demould temperature` : `${name} target`}
+              unit="°C"
+              value={s.targetC}
+              issue={issue('targetC')}
+              onCommit={(v) => set('targetC', `${name} target ${v} °C`, v)}
+            />
+          </td>
+          <td className="py-1 pr-2 text-xs text-ink-faint">—</td>
+        </>
+      )}
+      <td className="py-1 pr-2">
+        <NumberField compact label={`${name} pressure`} unit="bar" step={0.5} value={s.pressureBar} issue={issue('pressureBar')} onCommit={(v) => set('pressureBar', `${name} pressure ${v} bar`, v)} />
+      </td>
+      <td className="py-1">
+        <div className="flex items-center gap-1">
+          <button
+            type="button"
+            className="rounded border border-rule px-1.5 py-0.5 text-xs hover:bg-rule/40"
+            aria-label={`Split ${name}`}
+            title="Split into two halves"
+            onClick={() =>
+              edit(`Split ${name}`, (d) => {
+                const segs = (d.cycle as Draft<SegmentCycle>).segments;
+                segs.splice(i, 1, ...splitSegment(s, startC));
+              })
+            }
+          >
+            split
+          </button>
+          <button
+            type="button"
+            className="rounded border border-rule px-1.5 py-0.5 text-xs hover:bg-fault-soft disabled:opacity-40"
+            aria-label={`Remove ${name}`}
+            disabled={count <= 1}
+            onClick={() => edit(`Remove ${name}`, (d) => void (d.cycle as Draft<SegmentCycle>).segments.splice(i, 1))}
+          >
+            remove
+          </button>
+          <select
+            aria-label={`Add a segment after ${name}`}
+            className="rounded border border-rule bg-paper-raised px-1 py-0.5 text-xs"
+            value=""
+            onChange={(e) => {
+              const kind = e.target.value as CycleSegment['kind'] | '';
+              if (!kind) return;
+              const endC = s.kind === 'hold' ? startC : s.targetC;
+              edit(`Add ${kind} after ${name}`, (d) =>
+                void (d.cycle as Draft<SegmentCycle>).segments.splice(i + 1, 0, newSegment(kind, endC, s.pressureBar)),
+              );
+            }}
+          >
+            {addChoices.map((c) => (
+              <option key={c.value} value={c.value}>
+                {c.label}
+              </option>
+            ))}
+          </select>
+        </div>
+      </td>
+    </tr>
+  );
+}

@@ -1,0 +1,177 @@
+import { useEffect, useLayoutEffect, useMemo, useRef, useState } from 'react';
+import { Link, useParams } from 'react-router-dom';
+import { useQueryClient } from '@tanstack/react-query';
+import { ApiError } from '../../../lib/api-client';
+import { Panel } from '../../../components/ui/panel';
+import { TimeAxisProvider, makeTimeAxis, niceCycleEnd } from '../../../components/charts/time-axis';
+import { studyQueryOptions, useStudy, type WorkspaceStudy } from '../api/get-study';
+import { cycleEndMin, cycleSpans } from '../model/cycle-geometry';
+import { useLiveSolve } from '../hooks/use-live-solve';
+import { useUndoKeys } from '../hooks/use-undo-keys';
+import { measurePainted } from '../perf/input-latency';
+import { resultsStore, useResults } from '../stores/results-store';
+import { studyEditorStore, useStudyEditor } from '../stores/study-editor-store';
+import { AssumptionsNote } from './assumptions-note';
+import { CycleEditor } from './cycle/cycle-editor';
+import { SegmentTable } from './cycle/segment-table';
+import { HistoryLanes } from './results/history-lanes';
+import { KeyFigures } from './results/key-figures';
+import { LimitsVerdicts } from './results/limits-verdicts';
+import { PlyStressChart } from './results/ply-stress-chart';
+import { ScrubControl } from './results/scrub-control';
+import { ThroughThickness } from './results/through-thickness';
+import { WarpView } from './results/warp-view';
+import { MaterialPanel } from './setup/material-panel';
+import { LayupPanel } from './setup/layup-panel';
+import { GeometryPanel, HeatTransferPanel, LimitsSetupPanel, ToolPanel } from './setup/process-panels';
+import { WorkspaceToolbar } from './workspace-toolbar';
+
+function loadIntoEditor(study: WorkspaceStudy) {
+  resultsStore.getState().reset();
+  studyEditorStore
+    .getState()
+    .load({ studyId: study.id, name: study.title, baseRevision: study.latestRevisionNumber }, study.params);
+}
+
+/** Width of an element, following resizes. */
+function useWidth<T extends HTMLElement>(fallback: number) {
+  const ref = useRef<T>(null);
+  const [width, setWidth] = useState(fallback);
+  useLayoutEffect(() => {
+    const el = ref.current;
+    if (!el) return;
+    const measure = () => {
+      const w = Math.floor(el.getBoundingClientRect().width);
+      if (w > 0) setWidth(w);
+    };
+    measure();
+    if (typeof ResizeObserver === 'undefined') return;
+    const ro = new ResizeObserver(measure);
+    ro.observe(el);
+    return () => ro.disconnect();
+  }, []);
+  return [ref, width] as const;
+}
+
+/** One time axis for the editor and every lane: the longer of the drawn cycle and the solved one, held while dragging. */
+function useWorkspaceTimeAxis(width: number) {
+  const cycle = useStudyEditor((s) => s.params?.cycle);
+  const resultEnd = useResults((s) => (s.result ? s.result.history.timeS[s.result.history.timeS.length - 1] / 60 : 0));
+  const dragging = useResults((s) => s.dragging);
+  const held = useRef(0);
+  const nominalEnd = cycle?.kind === 'segments' ? cycleEndMin(cycleSpans(cycle.startC, cycle.segments)) : 0;
+  let end = niceCycleEnd(Math.max(nominalEnd, resultEnd, 1));
+  if (dragging) end = Math.max(end, held.current);
+  held.current = end;
+  return useMemo(() => makeTimeAxis([0, end], width), [end, width]);
+}
+
+/** Records the input-to-paint measure once the charts have committed a result. */
+function PaintProbe() {
+  const tag = useResults((s) => s.resultTag);
+  const result = useResults((s) => s.result);
+  useLayoutEffect(() => {
+    if (result) measurePainted(tag);
+  }, [result, tag]);
+  return null;
+}
+
+function Workspace({ study, onReload }: { study: WorkspaceStudy; onReload: () => void }) {
+  useLiveSolve();
+  useUndoKeys();
+  const [centreRef, width] = useWidth<HTMLDivElement>(900);
+  const axis = useWorkspaceTimeAxis(width);
+  const canWrite = study.role === 'engineer' || study.role === 'lead';
+
+  return (
+    <div className="flex min-h-full flex-col" data-testid="workspace">
+      <WorkspaceToolbar offline={study.offline} canWrite={canWrite} onReload={onReload} />
+      <div className="grid flex-1 grid-cols-1 lg:grid-cols-[20rem_minmax(0,1fr)] 2xl:grid-cols-[20rem_minmax(0,1fr)_22rem]">
+        <aside aria-label="Study setup" className="border-r border-rule bg-paper-raised/60 lg:max-h-[calc(100vh-7rem)] lg:overflow-y-auto">
+          <MaterialPanel />
+          <LayupPanel />
+          <ToolPanel />
+          <HeatTransferPanel />
+          <GeometryPanel />
+          <LimitsSetupPanel />
+        </aside>
+        <section aria-label="Cure cycle and results over time" className="min-w-0">
+          <KeyFigures />
+          <div ref={centreRef} className="border-t border-rule">
+            <TimeAxisProvider axis={axis}>
+              <CycleEditor />
+              <details open className="border-t border-rule">
+                <summary className="cursor-pointer px-3 py-1 text-[11px] font-semibold uppercase tracking-[0.08em] text-ink-soft">
+                  Segments, exact entry
+                </summary>
+                <SegmentTable />
+              </details>
+              <HistoryLanes />
+            </TimeAxisProvider>
+          </div>
+          <PaintProbe />
+        </section>
+        <aside aria-label="Verdicts and the part after cure" className="border-l border-rule bg-paper-raised/60 lg:col-span-2 2xl:col-span-1">
+          <div className="grid grid-cols-1 lg:grid-cols-2 2xl:grid-cols-1">
+            <Panel title="Process limits, verdict">
+              <LimitsVerdicts />
+            </Panel>
+            <Panel title="Through the thickness">
+              <ScrubControl />
+              <ThroughThickness />
+            </Panel>
+            <Panel title="Ply stresses after demould">
+              <PlyStressChart />
+            </Panel>
+            <Panel title="Shape after demould">
+              <WarpView />
+            </Panel>
+          </div>
+          <AssumptionsNote />
+        </aside>
+      </div>
+    </div>
+  );
+}
+
+/** The study workspace at /studies/:studyId. */
+export function WorkspacePage() {
+  const { studyId = '' } = useParams();
+  const query = useStudy(studyId);
+  const queryClient = useQueryClient();
+  const loadedFor = useStudyEditor((s) => s.meta?.studyId ?? null);
+
+  useEffect(() => {
+    if (query.data) loadIntoEditor(query.data);
+  }, [query.data]);
+
+  async function reload() {
+    const fresh = await queryClient.fetchQuery({ ...studyQueryOptions(studyId), staleTime: 0 });
+    loadIntoEditor(fresh);
+  }
+
+  if (query.isPending) return <p className="p-6 text-ink-soft">Opening the study…</p>;
+  if (query.isError) {
+    const err = query.error;
+    if (err instanceof ApiError && err.status === 401) {
+      return (
+        <div className="p-6">
+          <p className="mb-2">Sign in to open this study.</p>
+          <a className="text-slate underline" href={`/api/auth/github?next=${encodeURIComponent(`/studies/${studyId}`)}`}>
+            Sign in
+          </a>
+          <p className="mt-4 text-sm text-ink-soft">
+            Or try the <Link className="text-slate underline" to="/studies/demo">offline reference study</Link>.
+          </p>
+        </div>
+      );
+    }
+    return (
+      <p role="alert" className="p-6 text-fault">
+        This study could not be opened: {err.message}
+      </p>
+    );
+  }
+  if (loadedFor !== query.data.id) return <p className="p-6 text-ink-soft">Opening the study…</p>;
+  return <Workspace study={query.data} onReload={() => void reload()} />;
+}

@@ -1,0 +1,42 @@
+/**
+ * Input-to-paint timing. Every edit marks an input; when the charts have
+ * committed the result that includes it and the next frame has been drawn,
+ * one `dwellform:input-to-paint` measure per input is recorded. The bench
+ * (bench/ui.ts) reads these measures from the page.
+ */
+
+export const INPUT_TO_PAINT = 'dwellform:input-to-paint';
+
+type OpenInput = { seq: number; t: number };
+
+let seq = 0;
+let open: OpenInput[] = [];
+const MAX_OPEN = 500;
+
+const hasPerformance = () => typeof performance !== 'undefined' && typeof performance.measure === 'function';
+
+/** Call at the start of handling an input; returns its sequence number. */
+export function markInput(): number {
+  seq += 1;
+  if (hasPerformance()) {
+    open.push({ seq, t: performance.now() });
+    if (open.length > MAX_OPEN) open = open.slice(-MAX_OPEN);
+  }
+  return seq;
+}
+
+/** Inputs up to `tag` will never be painted (invalid study, solve error): forget them. */
+export function discardInputs(tag: number): void {
+  open = open.filter((o) => o.seq > tag);
+}
+
+/** Call after the charts committed a result for inputs up to `tag`; measures once the next frame is drawn. */
+export function measurePainted(tag: number): void {
+  if (!hasPerformance() || open.length === 0 || typeof requestAnimationFrame !== 'function') return;
+  requestAnimationFrame(() => {
+    const end = performance.now();
+    const done = open.filter((o) => o.seq <= tag);
+    open = open.filter((o) => o.seq > tag);
+    for (const o of done) performance.measure(INPUT_TO_PAINT, { start: o.t, end });
+  });
+}

@@ -1,0 +1,71 @@
+/**
+ * What the solver last answered, and view state that is not part of the study
+ * (scrubbed time, exaggeration). Kept apart from the editor store: results hold
+ * typed arrays, which immer does not draft, and view changes are not edits to undo.
+ */
+import { createStore, useStore } from 'zustand';
+import type { SimulationResult } from '../model/simulation-result';
+
+export type ResultsState = {
+  result: SimulationResult | null;
+  /** input sequence number the result includes (for the paint measure) */
+  resultTag: number;
+  solveMs: number | null;
+  busy: boolean;
+  /** the last solve failed: why */
+  error: string | null;
+  /** scrubbed time, minutes from cycle start */
+  scrubMin: number;
+  /** where a limit's worst point is, to mark in the through-thickness view */
+  focusZMm: number | null;
+  /** factor the warped shape and spring-in are drawn at */
+  exaggeration: number;
+  /** number of solves the worker has been asked for (shown to the curious, counted by tests) */
+  solveCount: number;
+  /** a handle is being dragged: scales hold still under the pointer */
+  dragging: boolean;
+};
+
+export type ResultsActions = {
+  setResult: (result: SimulationResult, tag: number, solveMs: number) => void;
+  setBusy: (busy: boolean) => void;
+  setError: (error: string | null) => void;
+  countSolve: () => void;
+  scrubTo: (minutes: number, zMm?: number | null) => void;
+  setExaggeration: (factor: number) => void;
+  setDragging: (dragging: boolean) => void;
+  reset: () => void;
+};
+
+const initial: ResultsState = {
+  result: null,
+  resultTag: 0,
+  solveMs: null,
+  busy: false,
+  error: null,
+  scrubMin: 0,
+  focusZMm: null,
+  exaggeration: 20,
+  solveCount: 0,
+  dragging: false,
+};
+
+export function createResultsStore() {
+  return createStore<ResultsState & ResultsActions>()((set) => ({
+    ...initial,
+    setResult: (result, tag, solveMs) => set({ result, resultTag: tag, solveMs, error: null }),
+    setBusy: (busy) => set({ busy }),
+    setError: (error) => set({ error }),
+    countSolve: () => set((s) => ({ solveCount: s.solveCount + 1 })),
+    scrubTo: (minutes, zMm = null) => set({ scrubMin: Math.max(0, minutes), focusZMm: zMm }),
+    setExaggeration: (factor) => set({ exaggeration: factor }),
+    setDragging: (dragging) => set({ dragging }),
+    reset: () => set({ ...initial }),
+  }));
+}
+
+export const resultsStore = createResultsStore();
+
+export function useResults<T>(selector: (state: ResultsState & ResultsActions) => T): T {
+  return useStore(resultsStore, selector);
+}

@@ -1,0 +1,121 @@
+import { describe, expect, it } from 'vitest';
+import { createSolveScheduler } from './solve-scheduler';
+
+/** A hand-driven frame clock and solver: each solve returns a promise the test settles. */
+function harness(extra: { cancelAfterMs?: number; withCancel?: boolean } = {}) {
+  const frames: (() => void)[] = [];
+  const calls: { params: number; resolve: (r: string) => void; reject: (e: unknown) => void }[] = [];
+  const delivered: { result: string; params: number; tag: number }[] = [];
+  const busyLog: boolean[] = [];
+  const timers: (() => void)[] = [];
+  let clock = 0;
+  let cancels = 0;
+  const scheduler = createSolveScheduler<number, string>({
+    solve: (params) =>
+      new Promise<string>((resolve, reject) => {
+        calls.push({ params, resolve, reject });
+      }),
+    onResult: (result, params, tag) => delivered.push({ result, params, tag }),
+    onBusy: (busy) => busyLog.push(busy),
+    cancel: extra.withCancel ? () => (cancels += 1) : undefined,
+    cancelAfterMs: extra.cancelAfterMs,
+    requestFrame: (cb) => frames.push(cb),
+    now: () => clock,
+    setTimer: (cb) => timers.push(cb),
+    clearTimer: () => undefined,
+  });
+  return {
+    scheduler,
+    calls,
+    delivered,
+    busyLog,
+    advance: (ms: number) => (clock += ms),
+    cancels: () => cancels,
+    flushFrame: () => frames.splice(0).forEach((cb) => cb()),
+    fireTimers: () => timers.splice(0).forEach((cb) => cb()),
+    settle: () => new Promise((r) => setTimeout(r, 0)),
+  };
+}
+
+describe('solve scheduler', () => {
+  it('coalesces requests made within one frame into one solve of the last params', () => {
+    const h = harness();
+    h.scheduler.request(1);
+    h.scheduler.request(2);
+    h.scheduler.request(3);
+    expect(h.calls).toHaveLength(0);
+    h.flushFrame();
+    expect(h.calls.map((c) => c.params)).toEqual([3]);
+  });
+
+  it('drops the result of a request superseded while it was in flight and solves the newest next', async () => {
+    const h = harness();
+    h.scheduler.request(1, 101);
+    h.flushFrame();
+    h.scheduler.request(2, 102);
+    h.flushFrame();
+    h.scheduler.request(3, 103);
+    h.flushFrame();
+    // Only the first is running; 2 was replaced by 3 while waiting.
+    expect(h.calls.map((c) => c.params)).toEqual([1]);
+    h.calls[0].resolve('result-1');
+    await h.settle();
+    expect(h.delivered).toEqual([]);
+    expect(h.calls.map((c) => c.params)).toEqual([1, 3]);
+    h.calls[1].resolve('result-3');
+    await h.settle();
+    expect(h.delivered).toEqual([{ result: 'result-3', params: 3, tag: 103 }]);
+  });
+
+  it('drops a result that arrives after a newer request was made but before its frame', async () => {
+    const h = harness();
+    h.scheduler.request(1);
+    h.flushFrame();
+    h.scheduler.request(2);
+    h.calls[0].resolve('stale');
+    await h.settle();
+    expect(h.delivered).toEqual([]);
+    h.flushFrame();
+    h.calls[1].resolve('fresh');
+    await h.settle();
+    expect(h.delivered.map((d) => d.result)).toEqual(['fresh']);
+  });
+
+  it('reports busy only once a solve outlives the busy delay, and idle when done', async () => {
+    const h = harness();
+    h.scheduler.request(1);
+    h.flushFrame();
+    expect(h.busyLog).toEqual([]);
+    h.fireTimers();
+    expect(h.busyLog).toEqual([true]);
+    h.calls[0].resolve('done');
+    await h.settle();
+    expect(h.busyLog).toEqual([true, false]);
+  });
+
+  it('cancels a long-running stale solve instead of waiting for it', () => {
+    const h = harness({ withCancel: true, cancelAfterMs: 100 });
+    h.scheduler.request(1);
+    h.flushFrame();
+    h.advance(150);
+    h.scheduler.request(2);
+    h.flushFrame();
+    expect(h.cancels()).toBe(1);
+    expect(h.calls.map((c) => c.params)).toEqual([1, 2]);
+  });
+
+  it('ignores the late settlement of a cancelled solve', async () => {
+    const h = harness({ withCancel: true, cancelAfterMs: 100 });
+    h.scheduler.request(1);
+    h.flushFrame();
+    h.advance(150);
+    h.scheduler.request(2);
+    h.flushFrame();
+    h.calls[0].resolve('from-cancelled');
+    await h.settle();
+    expect(h.delivered).toEqual([]);
+    h.calls[1].resolve('fresh');
+    await h.settle();
+    expect(h.delivered.map((d) => d.result)).toEqual(['fresh']);
+  });
+});
