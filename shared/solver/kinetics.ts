@@ -150,6 +150,18 @@ export function diffusionFactor(k: PreparedKinetics, alpha: number, TK: number):
   return 1 / (1 + Math.exp(k.diffusionC * (alpha - (k.diffusionAlphaC0 + k.diffusionAlphaCTPerK * TK))));
 }
 
+// x^p for x ≥ 0 on the hot path: the exponents of fitted cure laws are often whole or half numbers, which
+// need no transcendental call; otherwise exp(p ln x), markedly cheaper than Math.pow for a general p.
+function power(x: number, p: number): number {
+  if (p === 1) return x;
+  if (p === 2) return x * x;
+  if (p === 0) return 1;
+  if (p === 0.5) return Math.sqrt(x);
+  if (p === 1.5) return x * Math.sqrt(x);
+  if (x <= 0) return 0;
+  return Math.exp(p * Math.log(x));
+}
+
 // The rate for rate constants already evaluated at the temperature (K1..K3) and the diffusion centre
 // α_C0 + α_CT·T; `upper` selects the Lee–Loos–Springer branch. Never negative (a negative K1 + K2α at low
 // temperature means no reaction, not un-curing), never NaN.
@@ -157,17 +169,21 @@ function rateAt(k: PreparedKinetics, K1: number, K2: number, K3: number, centre:
   const free = alpha < 1 ? 1 - alpha : 0;
   let r: number;
   if (k.formCode === NTH_ORDER) {
-    r = K1 * (k.n === 1 ? free : Math.pow(free, k.n));
+    r = K1 * power(free, k.n);
   } else if (k.formCode === KAMAL_SOUROUR) {
     const seeded = alpha > ALPHA_SEED ? alpha : ALPHA_SEED;
-    r = (K1 + K2 * (k.m === 1 ? seeded : Math.pow(seeded, k.m))) * (k.n === 1 ? free : Math.pow(free, k.n));
+    r = (K1 + K2 * power(seeded, k.m)) * power(free, k.n);
   } else if (upper) {
     r = K3 * free;
   } else {
     r = (K1 + K2 * alpha) * free * (k.b - alpha);
   }
   if (!(r > 0)) return 0;
-  if (k.hasDiffusion) r /= 1 + Math.exp(k.diffusionC * (alpha - centre));
+  if (k.hasDiffusion) {
+    // Below −40 the exponential is under 1e-17 of 1: f_d is 1 to double precision, skip it.
+    const x = k.diffusionC * (alpha - centre);
+    if (x > -40) r /= 1 + Math.exp(x);
+  }
   return r;
 }
 
