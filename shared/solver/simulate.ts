@@ -4,6 +4,7 @@ import { advanceCycle, airAt, airRateKPerS, createCycleState, nextEventS, prepar
 import { createMechanics, demould, mechanicsResult, mechanicsStep, primeMechanics, resinModulusPa } from './mechanics';
 import { createMetricsTracker, observeStep, summarize } from './metrics';
 import { DEFAULT_STEP_LIMITS, type SimulateOptions, type SimulationResult, type StepLimits } from './simulation-result';
+import { cureRate } from './kinetics';
 import { adiabaticTemperatureRiseK, advanceThermochemical, createThermochemical, maxCureRate } from './thermochemical';
 
 export type { LimitCheck, SimulateOptions, SimulationHistory, SimulationResult, StepLimits, StudySummary } from './simulation-result';
@@ -147,14 +148,18 @@ export function simulate(input: StudyParams, options: SimulateOptions = {}): Sim
   let steps = 0;
   let naturalDt = limits.maxStepS;
   let partRate = 0; // fastest part temperature change of the last step, K/s
+  let fastNode = -1; // laminate node whose α moved most in the last step
+  let lastCureRate = 0; // that node's mean cure rate over the last step, 1/s
   while (!cycle.done) {
     if (steps >= MAX_STEPS) throw new Error(`simulate: gave up after ${MAX_STEPS} steps at t = ${t} s (step control failed)`);
     // Predict the step from the limits (physics.md §1); a step may at most double the last unclipped one.
     let dt = Math.min(limits.maxStepS, 2 * naturalDt);
     const airRate = airRateKPerS(program, cycle);
     if (airRate > 0) dt = Math.min(dt, limits.maxAirChangeK / airRate);
-    const cureRate = maxCureRate(tc);
-    if (cureRate > 0) dt = Math.min(dt, limits.maxCureChange / cureRate);
+    // Fastest cure rate now: evaluated at the node that cured fastest in the last step (one rate evaluation
+    // instead of one per node), never below that node's mean rate over the last step.
+    const rate = fastNode < 0 ? maxCureRate(tc) : Math.max(lastCureRate, cureRate(tc.kinetics, tc.alpha[fastNode], tc.TK[fastNode]));
+    if (rate > 0) dt = Math.min(dt, limits.maxCureChange / rate);
     if (partRate > 0) dt = Math.min(dt, limits.maxPartChangeK / partRate);
     naturalDt = dt;
     // Land exactly on the next event; avoid leaving a sliver just before it.
@@ -179,11 +184,18 @@ export function simulate(input: StudyParams, options: SimulateOptions = {}): Sim
 
     let minT = tc.TK[0];
     let maxT = tc.TK[0];
-    for (let j = 1; j < nodes; j++) {
+    let maxDAlpha = -1;
+    for (let j = 0; j < nodes; j++) {
       const T = tc.TK[j];
       if (T < minT) minT = T;
       if (T > maxT) maxT = T;
+      const dAlpha = tc.alpha[j] - tracker.prevAlpha[j];
+      if (dAlpha > maxDAlpha) {
+        maxDAlpha = dAlpha;
+        fastNode = j;
+      }
     }
+    lastCureRate = maxDAlpha / dt;
     observeStep(tracker, t, tc.TK, tc.alpha, 0, air.setpointK);
     record(t, air.airK, air.toolAirK, air.pressurePa, air.setpointK);
     advanceCycle(program, cycle, t, minT, maxT);
