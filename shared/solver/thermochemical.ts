@@ -218,9 +218,9 @@ function tryStep(s: ThermochemicalState, dtS: number, airK: number, toolAirK: nu
   // d ln(Δα)/dT bound per kelvin, without the 1/T² of the Arrhenius part (applied per node).
   const eMaxOverR = Math.max(k.a1 !== 0 ? k.e1OverR : 0, k.a2 !== 0 ? k.e2OverR : 0, k.a3 !== 0 ? k.e3OverR : 0);
   const diffusionSens = k.hasDiffusion ? k.diffusionC * Math.abs(k.diffusionAlphaCTPerK) : 0;
-  let passes = 0;
+  let passes = 1;
   let converged = false;
-  for (passes = 1; passes <= MAX_PASSES; passes++) {
+  for (; passes <= MAX_PASSES; passes++) {
     for (let j = 0; j < nLam; j++) {
       const Tk = (1 - theta) * TOld[off + j] + theta * TGuess[off + j];
       if (passes > 1) {
