@@ -3,7 +3,7 @@ import type { Cycle } from '../schemas/study';
 import { parseStudy } from '../schemas/study';
 import { kToC } from '../units';
 import { referenceStudy } from './demo-cards';
-import { advanceCycle, airAt, airRateKPerS, createCycleState, nextEventS, prepareCycle, scheduledDurationS, type CycleProgram, type CycleState } from './cycle';
+import { advanceCycle, airAt, airRateKPerS, createCycleState, nextEventS, plannedSchedule, prepareCycle, scheduledDurationS, type CycleProgram, type CycleState } from './cycle';
 
 function cycleOf(cycle: unknown): Cycle {
   return parseStudy({ ...referenceStudy(), cycle }).cycle;
@@ -150,5 +150,14 @@ describe('cycle state machine', () => {
     const b = airAt(program, s2, 1200);
     expect(kToC(b.toolAirK)).toBeCloseTo(35, 9);
     expect(b.pressurePa).toBe(6e5);
+  });
+});
+
+describe('planned schedule', () => {
+  it('gives the corner points of the schedule (closed form: 50, 110, 140, 260, 300 min)', () => {
+    const s = plannedSchedule(cycleOf(twoDwell));
+    expect(s.timeMin).toEqual([0, 50, 110, 140, 260, 300].map((m) => expect.closeTo(m, 9)));
+    expect(s.airC).toEqual([20, 120, 120, 180, 180, 60]);
+    expect(s.pressureBar).toEqual([7, 7, 7, 7, 7, 3]);
   });
 });

@@ -253,3 +253,35 @@ export function scheduledDurationS(program: CycleProgram): number {
   if (program.kind === 'record') return program.timeS[program.timeS.length - 1];
   return program.segments.reduce((s, seg) => s + seg.durationS, 0);
 }
+
+/**
+ * The planned schedule as corner points for a chart (every hold taken on the clock, so lagging-part holds show
+ * their minimum length): time in minutes, air in °C, pressure in bar. Records come back as recorded.
+ */
+export function plannedSchedule(cycle: Cycle): { timeMin: number[]; airC: number[]; pressureBar: number[] } {
+  if (cycle.kind === 'record') {
+    const t0 = cycle.points[0].timeMin;
+    let lastBar = 0;
+    return {
+      timeMin: cycle.points.map((p) => p.timeMin - t0),
+      airC: cycle.points.map((p) => p.airC),
+      pressureBar: cycle.points.map((p) => (lastBar = p.pressureBar ?? lastBar)),
+    };
+  }
+  const timeMin = [0];
+  const airC = [cycle.startC];
+  const pressureBar = [cycle.segments[0].pressureBar];
+  let t = 0;
+  let c = cycle.startC;
+  for (const seg of cycle.segments) {
+    if (seg.kind === 'hold') t += seg.holdMin;
+    else {
+      t += Math.abs(seg.targetC - c) / seg.rateCPerMin;
+      c = seg.targetC;
+    }
+    timeMin.push(t);
+    airC.push(c);
+    pressureBar.push(seg.pressureBar);
+  }
+  return { timeMin, airC, pressureBar };
+}
