@@ -88,6 +88,28 @@ describe('paramDiff', () => {
     ]);
   });
 
+  it('matches an edited segment with the one it most resembles, even when earlier segments were removed', () => {
+    // Single fast ramp: drop the first ramp and dwell, ramp at 5 °C/min to 180 °C, clock-started dwell, faster cool.
+    const b = edit((p) => {
+      p.cycle = {
+        kind: 'segments',
+        startC: 20,
+        segments: [
+          { kind: 'ramp', rateCPerMin: 5, targetC: 180, pressureBar: 7 },
+          { kind: 'hold', holdMin: 120, pressureBar: 7, start: 'clock', bandC: 5 },
+          { kind: 'cool', rateCPerMin: 5, targetC: 60, pressureBar: 7 },
+        ],
+      };
+    });
+    expect(texts(paramDiff(referenceStudy(), b))).toEqual([
+      'Cycle segment 1 removed (was ramp at 2 °C/min to 120 °C, 7 bar)',
+      'Cycle segment 2 removed (was hold 60 min, 7 bar, clock starts when the lagging part point is within ±5 °C)',
+      'Cycle segment 1 (ramp, segment 3 before): rate 2 °C/min → 5 °C/min (+3 °C/min)',
+      'Cycle segment 2 (hold, segment 4 before): hold clock starts when the lagging part point is in band → at once',
+      'Cycle segment 3 (cool, segment 5 before): rate 3 °C/min → 5 °C/min (+2 °C/min)',
+    ]);
+  });
+
   it('names a changed demould temperature and pressure on the cool segment', () => {
     const b = edit((p) => {
       const cool = segments(p)[4];

@@ -149,7 +149,7 @@ function totalThicknessMm(plies: Ply[]): number {
 function diffLayup(out: ParamChange[], a: Ply[], b: Ply[]) {
   if (deepEqual(a, b)) return;
   const lines: ParamChange[] = [];
-  for (const pair of alignLists(a, b, deepEqual)) {
+  for (const pair of alignLists(a, b)) {
     if (pair.kind === 'same') continue;
     if (pair.kind === 'added') {
       lines.push({ area: 'layup', kind: 'added', path: `layup.plies.${pair.indexB}`, text: `Ply ${pair.indexB + 1} added: ${describePly(pair.b)}` });
@@ -222,7 +222,7 @@ function diffCycle(out: ParamChange[], a: StudyParams['cycle'], b: StudyParams['
     return;
   }
   diffStudyField(out, 'cycle', 'cycle.startC', a.startC, b.startC);
-  for (const pair of alignLists(a.segments, b.segments, deepEqual)) {
+  for (const pair of alignLists(a.segments, b.segments)) {
     if (pair.kind === 'same') continue;
     if (pair.kind === 'added') {
       out.push({ area: 'cycle', kind: 'added', path: `cycle.segments.${pair.indexB}`, text: `Cycle segment ${pair.indexB + 1} added: ${describeSegment(pair.b)}` });
@@ -232,10 +232,11 @@ function diffCycle(out: ParamChange[], a: StudyParams['cycle'], b: StudyParams['
       out.push({ area: 'cycle', kind: 'removed', path: `cycle.segments.${pair.indexA}`, text: `Cycle segment ${pair.indexA + 1} removed (was ${describeSegment(pair.a)})` });
       continue;
     }
-    const number = pair.indexA === pair.indexB ? `${pair.indexB + 1}` : `${pair.indexB + 1} (segment ${pair.indexA + 1} before)`;
+    const moved = pair.indexA === pair.indexB ? '' : `segment ${pair.indexA + 1} before`;
     const path = `cycle.segments.${pair.indexB}`;
     if (pair.a.kind !== pair.b.kind) {
-      out.push({ area: 'cycle', kind: 'changed', path, text: `Cycle segment ${number} replaced: ${describeSegment(pair.a)} → ${describeSegment(pair.b)}` });
+      const text = `Cycle segment ${pair.indexB + 1}${moved ? ` (${moved})` : ''} replaced: ${describeSegment(pair.a)} → ${describeSegment(pair.b)}`;
+      out.push({ area: 'cycle', kind: 'changed', path, text });
       continue;
     }
     const before = pair.a as Json;
@@ -243,7 +244,7 @@ function diffCycle(out: ParamChange[], a: StudyParams['cycle'], b: StudyParams['
     for (const key of Object.keys(after)) {
       if (key === 'kind' || deepEqual(before[key], after[key])) continue;
       const label = fieldLabel(FIELD_LABELS.segment, key);
-      const subject = `Cycle segment ${number} (${pair.b.kind}): `;
+      const subject = `Cycle segment ${pair.indexB + 1} (${pair.b.kind}${moved ? `, ${moved}` : ''}): `;
       const text =
         key === 'start'
           ? `${subject}hold clock starts ${describeHoldStart(before[key] as 'clock')} → ${describeHoldStart(after[key] as 'clock')}`

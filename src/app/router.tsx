@@ -10,10 +10,13 @@ export const router = createBrowserRouter([
     element: <AppShell />,
     children: [
       { index: true, element: <HomeRoute /> },
+      { path: 'compare', lazy: () => import('./routes/compare') },
       { path: 'studies/:studyId', lazy: () => import('./routes/study-workspace') },
       { path: '*', element: <NotFoundRoute /> },
     ],
   },
+  // The printable report is a document of its own: no app header or footer on paper.
+  { path: '/report', lazy: () => import('./routes/report') },
 ]);
 
 export function AppRouter() {

@@ -6,6 +6,7 @@ export type NavItem = { to: string; label: string };
 
 const navItems: NavItem[] = [
   { to: '/', label: 'Home' },
+  { to: '/compare', label: 'Compare' },
   { to: '/studies/demo', label: 'Reference study' },
 ];
 
