@@ -45,7 +45,7 @@ export async function runViscoelasticBench(): Promise<Figures> {
   for (let k = 0; k <= STEPS; k++) {
     const t = k * dt;
     eps[k] = 1e-3 * Math.sin(t / 3000) + 2e-4 * Math.sin(t / 170);
-    if (k > 0) xi[k] = xi[k - 1] + reducedTimeIncrement(dt, 3 * Math.sin(((k - 1) * dt) / 5000), 3 * Math.sin((k * dt) / 5000));
+    if (k > 0) xi[k] = xi[k - 1] + reducedTimeIncrement(dt, 10 ** (-3 * Math.sin(((k - 1) * dt) / 5000)), 10 ** (-3 * Math.sin((k * dt) / 5000)));
   }
 
   const direct = new Float64Array(STEPS + 1);

@@ -241,6 +241,8 @@ export interface IncrementalLaminate {
   /** stress state per point: σ∞ (3) and hᵢ (3 per term), Pa */
   sigmaRelaxed: Float64Array;
   h: Float64Array;
+  /** total stress per point, σ∞ + Σ hᵢ (laminate axes), kept with the update */
+  stress: Float64Array;
   // Inputs for the next step, written by the caller:
   /** 1 where the point carries stress (gelled resin), 0 where it is liquid */
   active: Uint8Array;
@@ -255,8 +257,13 @@ export interface IncrementalLaminate {
   curvature: Float64Array;
   /** increments of the last step: [Δε⁰ (3), Δκ (3)] */
   lastIncrement: Float64Array;
+  /** plies with identical stiffness share a group: the 6×6 is assembled per group, not per point */
+  plyGroup: Int32Array;
+  groupFirstPly: Int32Array;
   // Scratch, allocated once:
-  qEff: Float64Array;
+  /** Σ sᵢ gᵢ per point: the relaxing stiffness's share in Q_eff this step */
+  share: Float64Array;
+  groupWeights: Float64Array;
   history: Float64Array;
   K: Float64Array;
   rhs: Float64Array;
@@ -265,6 +272,16 @@ export interface IncrementalLaminate {
 
 export function createIncrementalLaminate(geometry: LaminateGeometry, qRelaxed: Float64Array, qRelaxing: Float64Array, termCount: number): IncrementalLaminate {
   const points = 2 * geometry.plyCount;
+  const plyGroup = new Int32Array(geometry.plyCount);
+  const firsts: number[] = [];
+  for (let k = 0; k < geometry.plyCount; k++) {
+    let g = firsts.findIndex((f) => {
+      for (let j = 0; j < 6; j++) if (qRelaxed[6 * f + j] !== qRelaxed[6 * k + j] || qRelaxing[6 * f + j] !== qRelaxing[6 * k + j]) return false;
+      return true;
+    });
+    if (g < 0) g = firsts.push(k) - 1;
+    plyGroup[k] = g;
+  }
   return {
     geometry,
     termCount,
@@ -272,6 +289,7 @@ export function createIncrementalLaminate(geometry: LaminateGeometry, qRelaxed: 
     qRelaxing,
     sigmaRelaxed: new Float64Array(3 * points),
     h: new Float64Array(3 * points * termCount),
+    stress: new Float64Array(3 * points),
     active: new Uint8Array(points),
     e: new Float64Array(points * termCount),
     sg: new Float64Array(points * termCount),
@@ -279,7 +297,10 @@ export function createIncrementalLaminate(geometry: LaminateGeometry, qRelaxed: 
     midPlaneStrain: new Float64Array(3),
     curvature: new Float64Array(3),
     lastIncrement: new Float64Array(6),
-    qEff: new Float64Array(6 * points),
+    plyGroup,
+    groupFirstPly: Int32Array.from(firsts),
+    share: new Float64Array(points),
+    groupWeights: new Float64Array(8 * firsts.length),
     history: new Float64Array(3 * points),
     K: new Float64Array(36),
     rhs: new Float64Array(6),
@@ -289,19 +310,9 @@ export function createIncrementalLaminate(geometry: LaminateGeometry, qRelaxed: 
 
 /** Current stress at point p (laminate axes): σ∞ + Σ hᵢ. */
 export function pointStress(lam: IncrementalLaminate, p: number, out: Float64Array, o = 0): void {
-  const m = lam.termCount;
-  let sx = lam.sigmaRelaxed[3 * p];
-  let sy = lam.sigmaRelaxed[3 * p + 1];
-  let txy = lam.sigmaRelaxed[3 * p + 2];
-  for (let i = 0; i < m; i++) {
-    const b = 3 * (p * m + i);
-    sx += lam.h[b];
-    sy += lam.h[b + 1];
-    txy += lam.h[b + 2];
-  }
-  out[o] = sx;
-  out[o + 1] = sy;
-  out[o + 2] = txy;
+  out[o] = lam.stress[3 * p];
+  out[o + 1] = lam.stress[3 * p + 1];
+  out[o + 2] = lam.stress[3 * p + 2];
 }
 
 /** Force and moment resultants [Nx, Ny, Nxy, Mx, My, Mxy] of the current stresses (N/m, N). */
@@ -327,15 +338,13 @@ export function laminateStep(lam: IncrementalLaminate, held: boolean, heldStrain
   const g = lam.geometry;
   const points = 2 * g.plyCount;
   const m = lam.termCount;
-  const { qEff, history, K, rhs, x } = lam;
+  const { share, history, K, rhs, x } = lam;
 
-  // Effective stiffness and history term per point.
+  // The relaxing stiffness's share and the history term Σ(eᵢ − 1)hᵢ per point.
   for (let p = 0; p < points; p++) {
-    const o = 6 * (p >> 1);
-    const oq = 6 * p;
     const oh = 3 * p;
     if (!lam.active[p]) {
-      for (let j = 0; j < 6; j++) qEff[oq + j] = LIQUID_STIFFNESS_FRACTION * (lam.qRelaxed[o + j] + lam.qRelaxing[o + j]);
+      share[p] = 0;
       history[oh] = history[oh + 1] = history[oh + 2] = 0;
       continue;
     }
@@ -351,7 +360,7 @@ export function laminateStep(lam: IncrementalLaminate, held: boolean, heldStrain
       hy += em1 * lam.h[3 * t + 1];
       hxy += em1 * lam.h[3 * t + 2];
     }
-    for (let j = 0; j < 6; j++) qEff[oq + j] = lam.qRelaxed[o + j] + sgSum * lam.qRelaxing[o + j];
+    share[p] = sgSum;
     history[oh] = hx;
     history[oh + 1] = hy;
     history[oh + 2] = hxy;
@@ -364,34 +373,57 @@ export function laminateStep(lam: IncrementalLaminate, held: boolean, heldStrain
     inc[2] = inc[3] = inc[4] = inc[5] = 0;
   } else {
     // Assemble [A B; B' D] {Δε⁰; H·Δκ} = r, with moment rows divided by H and curvature scaled by H so all
-    // entries share one magnitude (H the laminate thickness).
+    // entries share one magnitude (H the laminate thickness). Q_eff = Q̄∞ + share·ΔQ̄ (a liquid point keeps
+    // LIQUID_STIFFNESS_FRACTION of Q̄∞ + ΔQ̄), so the matrix needs only four weights per stiffness and group.
     const H = g.thicknessM;
-    K.fill(0);
+    const gw = lam.groupWeights;
+    gw.fill(0);
     rhs.fill(0);
     const r = x; // scratch 3-vector for one point's right-hand side
     for (let p = 0; p < points; p++) {
-      const oq = 6 * p;
-      const z = g.pointZM[p];
+      const o = 6 * (p >> 1);
+      const zH = g.pointZM[p] / H;
       const a0 = g.w0[p];
       const a1 = g.w1[p] / H;
-      const zH = z / H;
+      const active = lam.active[p] === 1;
+      const cR = active ? 1 : LIQUID_STIFFNESS_FRACTION;
+      const cD = active ? share[p] : LIQUID_STIFFNESS_FRACTION;
+      const b = 8 * lam.plyGroup[p >> 1];
+      gw[b] += a0 * cR;
+      gw[b + 1] += a0 * zH * cR;
+      gw[b + 2] += a1 * cR;
+      gw[b + 3] += a1 * zH * cR;
+      gw[b + 4] += a0 * cD;
+      gw[b + 5] += a0 * zH * cD;
+      gw[b + 6] += a1 * cD;
+      gw[b + 7] += a1 * zH * cD;
+      if (!active) continue;
       // r = Q_eff Δε_free − Σ(eᵢ − 1)hᵢ − σ_old
+      const fx = lam.freeStrain[3 * p];
+      const fy = lam.freeStrain[3 * p + 1];
+      const fxy = lam.freeStrain[3 * p + 2];
       r[0] = r[1] = r[2] = 0;
-      if (lam.active[p]) {
-        addProduct(qEff, oq, lam.freeStrain[3 * p], lam.freeStrain[3 * p + 1], lam.freeStrain[3 * p + 2], 1, r, 0);
-        pointStress(lam, p, r, 3);
-        for (let i = 0; i < 3; i++) r[i] -= history[3 * p + i] + r[i + 3];
+      addProduct(lam.qRelaxed, o, fx, fy, fxy, 1, r, 0);
+      addProduct(lam.qRelaxing, o, fx, fy, fxy, share[p], r, 0);
+      for (let i = 0; i < 3; i++) {
+        const ri = r[i] - history[3 * p + i] - lam.stress[3 * p + i];
+        rhs[i] += a0 * ri;
+        rhs[i + 3] += a1 * ri;
       }
+    }
+    K.fill(0);
+    for (let grp = 0; grp < lam.groupFirstPly.length; grp++) {
+      const o = 6 * lam.groupFirstPly[grp];
+      const b = 8 * grp;
       for (let i = 0; i < 3; i++) {
         for (let j = 0; j < 3; j++) {
-          const qij = qEff[oq + FULL_INDEX[3 * i + j]];
-          K[6 * i + j] += a0 * qij;
-          K[6 * i + j + 3] += a0 * zH * qij;
-          K[6 * (i + 3) + j] += a1 * qij;
-          K[6 * (i + 3) + j + 3] += a1 * zH * qij;
+          const qr = lam.qRelaxed[o + FULL_INDEX[3 * i + j]];
+          const qd = lam.qRelaxing[o + FULL_INDEX[3 * i + j]];
+          K[6 * i + j] += gw[b] * qr + gw[b + 4] * qd;
+          K[6 * i + j + 3] += gw[b + 1] * qr + gw[b + 5] * qd;
+          K[6 * (i + 3) + j] += gw[b + 2] * qr + gw[b + 6] * qd;
+          K[6 * (i + 3) + j + 3] += gw[b + 3] * qr + gw[b + 7] * qd;
         }
-        rhs[i] += a0 * r[i];
-        rhs[i + 3] += a1 * r[i];
       }
     }
     solve6(K, rhs, x);
@@ -416,14 +448,20 @@ export function laminateStep(lam: IncrementalLaminate, held: boolean, heldStrain
     const vx = qd[o] * dx + qd[o + 1] * dy + qd[o + 2] * dxy;
     const vy = qd[o + 1] * dx + qd[o + 3] * dy + qd[o + 4] * dxy;
     const vxy = qd[o + 2] * dx + qd[o + 4] * dy + qd[o + 5] * dxy;
+    let sx = lam.sigmaRelaxed[3 * p];
+    let sy = lam.sigmaRelaxed[3 * p + 1];
+    let sxy = lam.sigmaRelaxed[3 * p + 2];
     for (let i = 0; i < m; i++) {
       const t = p * m + i;
       const e = lam.e[t];
       const sg = lam.sg[t];
-      lam.h[3 * t] = e * lam.h[3 * t] + sg * vx;
-      lam.h[3 * t + 1] = e * lam.h[3 * t + 1] + sg * vy;
-      lam.h[3 * t + 2] = e * lam.h[3 * t + 2] + sg * vxy;
+      sx += lam.h[3 * t] = e * lam.h[3 * t] + sg * vx;
+      sy += lam.h[3 * t + 1] = e * lam.h[3 * t + 1] + sg * vy;
+      sxy += lam.h[3 * t + 2] = e * lam.h[3 * t + 2] + sg * vxy;
     }
+    lam.stress[3 * p] = sx;
+    lam.stress[3 * p + 1] = sy;
+    lam.stress[3 * p + 2] = sxy;
   }
   for (let i = 0; i < 3; i++) {
     lam.midPlaneStrain[i] += inc[i];

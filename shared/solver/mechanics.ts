@@ -29,9 +29,9 @@ import { freeStrainCoefficients, plyProperties, resinShrinkageStrain, type Fibre
 import {
   apparentResinModulusPa,
   chileGlassyFraction,
-  log10ShiftFactor,
   prepareResinRelaxation,
   reducedTimeIncrement,
+  reducedTimeRate,
   relaxationFactors,
   type ResinRelaxation,
 } from './viscoelastic';
@@ -61,14 +61,18 @@ export interface MechanicsState {
   /** values at the end of the previous step, per point */
   prevTK: Float64Array;
   prevAlpha: Float64Array;
-  prevLog10a: Float64Array;
+  /** dξ/dt = 1/a at the end of the previous step */
+  prevRate: Float64Array;
+  /** the resin's linear shrinkage strain at the end of the previous step (kept from gel on) */
+  prevShrink: Float64Array;
   gelled: Uint8Array;
   /** ply-axis free strains accumulated since gel, per point: thermal (ε1, ε2) and chemical (ε1, ε2) */
   thermalSinceGel: Float64Array;
   chemicalSinceGel: Float64Array;
   /** index of the point nearest the mid-plane */
   midPoint: number;
-  resinModulusMidPa: number;
+  /** Tg at the mid-plane point at the end of the last step (T and α are in prevTK, prevAlpha) */
+  midTgK: number;
   coeff: Float64Array;
 }
 
@@ -131,6 +135,9 @@ export function createMechanics(params: MechanicsInput, plyPointZM: Float64Array
   const terms = resin.weights.length;
   let midPoint = 0;
   for (let p = 1; p < points; p++) if (Math.abs(geometry.pointZM[p]) < Math.abs(geometry.pointZM[midPoint]) - 1e-15) midPoint = p;
+  // Until the loop says otherwise the part starts uniform at the cycle's start temperature, uncured.
+  const t0 = startTemperatureK(params.cycle);
+  const tg0 = cToK(params.resin.glassTransition.tg0C);
   const state: MechanicsState = {
     resin,
     gelPoint: params.resin.gelPoint,
@@ -150,19 +157,17 @@ export function createMechanics(params: MechanicsInput, plyPointZM: Float64Array
     released: false,
     prevTK: new Float64Array(points),
     prevAlpha: new Float64Array(points),
-    prevLog10a: new Float64Array(points),
+    prevRate: new Float64Array(points),
+    prevShrink: new Float64Array(points),
     gelled: new Uint8Array(points),
     thermalSinceGel: new Float64Array(2 * points),
     chemicalSinceGel: new Float64Array(2 * points),
     midPoint,
-    resinModulusMidPa: 0,
+    midTgK: tg0,
     coeff: new Float64Array(4),
   };
-  // Until the loop says otherwise the part starts uniform at the cycle's start temperature, uncured.
-  const t0 = startTemperatureK(params.cycle);
-  const tg0 = cToK(params.resin.glassTransition.tg0C);
   state.prevTK.fill(t0);
-  state.prevLog10a.fill(log10ShiftFactor(resin.shift, t0, tg0, 0));
+  state.prevRate.fill(reducedTimeRate(resin.shift, t0, tg0, 0));
   return state;
 }
 
@@ -174,9 +179,11 @@ export function primeMechanics(state: MechanicsState, TK: Float64Array, alpha: F
   for (let p = 0; p < state.prevTK.length; p++) {
     state.prevTK[p] = TK[p];
     state.prevAlpha[p] = alpha[p];
-    state.prevLog10a[p] = log10ShiftFactor(state.resin.shift, TK[p], tgK[p], alpha[p]);
+    state.prevRate[p] = reducedTimeRate(state.resin.shift, TK[p], tgK[p], alpha[p]);
+    state.prevShrink[p] = resinShrinkageStrain(alpha[p], state.shrinkage);
     state.gelled[p] = alpha[p] >= state.gelPoint ? 1 : 0;
   }
+  state.midTgK = tgK[state.midPoint];
 }
 
 function checkInputs(state: MechanicsState, TK: Float64Array, alpha: Float64Array, tgK: Float64Array, dtS: number): void {
@@ -198,6 +205,15 @@ export function mechanicsStep(state: MechanicsState, TK: Float64Array, alpha: Fl
   const coeff = state.coeff;
   const points = state.prevTK.length;
   const toolPrevK = state.prevTK[0];
+  // The top face of one ply and the bottom face of the next usually see identical values: the work of the
+  // first is reused for the second (same resin, same step; only the ply angle differs).
+  let lastPrevT = NaN;
+  let lastPrevA = NaN;
+  let lastWasGelled = -1;
+  let th1 = 0;
+  let th2 = 0;
+  let ch1 = 0;
+  let ch2 = 0;
 
   for (let p = 0; p < points; p++) {
     const T = TK[p];
@@ -206,60 +222,72 @@ export function mechanicsStep(state: MechanicsState, TK: Float64Array, alpha: Fl
     if (!(T > 0 && a >= 0 && a <= 1 && tg > 0)) {
       throw new RangeError(`mechanicsStep: point ${p} has T ${T} K, α ${a}, Tg ${tg} K: allowed T > 0, 0 ≤ α ≤ 1, Tg > 0`);
     }
-    const la = prony ? log10ShiftFactor(resin.shift, T, tg, a) : 0;
     const prevT = state.prevTK[p];
     const prevA = state.prevAlpha[p];
-    const prevLa = state.prevLog10a[p];
+    const wasGelled = state.gelled[p];
+    const same =
+      p > 0 && T === TK[p - 1] && a === alpha[p - 1] && tg === tgK[p - 1] && prevT === lastPrevT && prevA === lastPrevA && wasGelled === lastWasGelled;
+    lastPrevT = prevT;
+    lastPrevA = prevA;
+    lastWasGelled = wasGelled;
+    const prevRate = state.prevRate[p];
+    const rate = same ? state.prevRate[p - 1] : prony ? reducedTimeRate(resin.shift, T, tg, a) : 1;
     state.prevTK[p] = T;
     state.prevAlpha[p] = a;
-    state.prevLog10a[p] = la;
-    const justGelled = !state.gelled[p] && a >= state.gelPoint;
+    state.prevRate[p] = rate;
+    const justGelled = !wasGelled && a >= state.gelPoint;
     if (justGelled) state.gelled[p] = 1;
     const o = 3 * p;
     if (!state.gelled[p]) {
       lam.active[p] = 0;
       lam.freeStrain[o] = lam.freeStrain[o + 1] = lam.freeStrain[o + 2] = 0;
+      continue;
+    }
+    lam.active[p] = 1;
+    const termBase = p * terms;
+    if (same) {
+      lam.e.copyWithin(termBase, termBase - terms, termBase);
+      lam.sg.copyWithin(termBase, termBase - terms, termBase);
+      state.prevShrink[p] = state.prevShrink[p - 1];
     } else {
-      lam.active[p] = 1;
-      const t0 = p * terms;
       let shareSum = 0;
       if (prony) {
-        const dXi = reducedTimeIncrement(dtS, prevLa, la);
-        relaxationFactors(dXi, resin.timesS, lam.e, lam.sg, t0);
+        relaxationFactors(reducedTimeIncrement(dtS, prevRate, rate), resin.timesS, lam.e, lam.sg, termBase);
         for (let i = 0; i < terms; i++) {
-          lam.sg[t0 + i] *= resin.weights[i];
-          shareSum += lam.sg[t0 + i];
+          lam.sg[termBase + i] *= resin.weights[i];
+          shareSum += lam.sg[termBase + i];
         }
       } else {
         // CHILE: one term of τ = ∞ (e = g = 1) whose share is the glassy fraction at the end of the step.
         shareSum = chileGlassyFraction(resin.chile, T, tg);
-        lam.e[t0] = 1;
-        lam.sg[t0] = shareSum;
+        lam.e[termBase] = 1;
+        lam.sg[termBase] = shareSum;
       }
       // Free strain with the resin's effective modulus over the step; a point that gels in this step starts
       // from the gel point and this step's temperature.
       freeStrainCoefficients(state.fibre, resin.relaxedPa + shareSum * range, state.resinNu, state.resinCtePerK, state.fibreVolumeFraction, coeff);
       const dT = justGelled ? 0 : T - prevT;
-      const fromAlpha = justGelled ? state.gelPoint : prevA;
-      const dShrink = resinShrinkageStrain(a, state.shrinkage) - resinShrinkageStrain(fromAlpha, state.shrinkage);
-      const th1 = coeff[0] * dT;
-      const th2 = coeff[1] * dT;
-      const ch1 = coeff[2] * dShrink;
-      const ch2 = coeff[3] * dShrink;
-      state.thermalSinceGel[2 * p] += th1;
-      state.thermalSinceGel[2 * p + 1] += th2;
-      state.chemicalSinceGel[2 * p] += ch1;
-      state.chemicalSinceGel[2 * p + 1] += ch2;
-      const k = p >> 1;
-      plyFreeStrainToLaminate(th1 + ch1, th2 + ch2, state.plyCos[k], state.plySin[k], lam.freeStrain, o);
+      const fromShrink = justGelled ? resinShrinkageStrain(state.gelPoint, state.shrinkage) : state.prevShrink[p];
+      const shrink = a === prevA && !justGelled ? fromShrink : resinShrinkageStrain(a, state.shrinkage);
+      state.prevShrink[p] = shrink;
+      th1 = coeff[0] * dT;
+      th2 = coeff[1] * dT;
+      ch1 = coeff[2] * (shrink - fromShrink);
+      ch2 = coeff[3] * (shrink - fromShrink);
     }
+    state.thermalSinceGel[2 * p] += th1;
+    state.thermalSinceGel[2 * p + 1] += th2;
+    state.chemicalSinceGel[2 * p] += ch1;
+    state.chemicalSinceGel[2 * p + 1] += ch2;
+    const k = p >> 1;
+    plyFreeStrainToLaminate(th1 + ch1, th2 + ch2, state.plyCos[k], state.plySin[k], lam.freeStrain, o);
   }
 
   // Held on the tool: the part's mid-plane follows the tool surface, whose temperature is the bottom face's.
   const held = state.held && !state.released;
   laminateStep(lam, held, held ? state.toolCtePerK * (TK[0] - toolPrevK) : 0);
   const m = state.midPoint;
-  state.resinModulusMidPa = apparentResinModulusPa(resin, state.gelPoint, TK[m], alpha[m], tgK[m]);
+  state.midTgK = tgK[m];
 }
 
 /**
@@ -346,6 +374,6 @@ export function mechanicsResult(state: MechanicsState, params: Pick<StudyParams,
     curvature: { kx, ky, kxy },
     warpageMm: Math.abs(mToMm(stripWarpageM(kx, mmToM(params.geometry.stripSpanMm)))),
     springInDeg: springInFromHistory(state, params.geometry.cornerAngleDeg),
-    resinModulusMidPa: state.resinModulusMidPa,
+    resinModulusMidPa: apparentResinModulusPa(state.resin, state.gelPoint, state.prevTK[state.midPoint], state.prevAlpha[state.midPoint], state.midTgK),
   };
 }
