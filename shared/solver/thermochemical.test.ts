@@ -126,6 +126,23 @@ describe('thick against thin (common practice, no source)', () => {
   });
 });
 
+describe('mesh convergence of the coupled column', () => {
+  it('the peak exotherm of a 10 mm laminate hardly moves from 2 to 4 nodes per ply', () => {
+    // spatial convergence of the finite-volume column (common practice, no source)
+    const peakC = (nodesPerPly: number) => {
+      const s = createThermochemical(study(40, { mesh: { nodesPerPly } }), { initialK: 20 + C0 });
+      let peak = -Infinity;
+      cure(s, rampHold(5), 120 * 60, (st) => {
+        for (let j = 0; j < st.TK.length; j++) peak = Math.max(peak, st.TK[j]);
+      });
+      return peak - C0;
+    };
+    const coarse = peakC(2);
+    expect(coarse).toBeGreaterThan(185);
+    expect(Math.abs(peakC(4) - coarse)).toBeLessThan(0.05);
+  });
+});
+
 describe('time-step convergence of the coupled step', () => {
   // Air rises smoothly from 20 °C to 180 °C over an hour (zero slope at the start, compatible with the uniform
   // start), 10 mm laminate, exotherm in progress at the end: the centre temperature at one hour.
