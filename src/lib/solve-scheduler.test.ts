@@ -118,4 +118,18 @@ describe('solve scheduler', () => {
     await h.settle();
     expect(h.delivered.map((d) => d.result)).toEqual(['fresh']);
   });
+
+  it('never cancels the solve that replaced a cancelled one, so a long drag still gets answers', () => {
+    const h = harness({ withCancel: true, cancelAfterMs: 100 });
+    h.scheduler.request(1);
+    h.flushFrame();
+    h.advance(150);
+    h.scheduler.request(2);
+    h.flushFrame();
+    h.advance(150);
+    h.scheduler.request(3);
+    h.flushFrame();
+    expect(h.cancels()).toBe(1);
+    expect(h.calls.map((c) => c.params)).toEqual([1, 2]);
+  });
 });

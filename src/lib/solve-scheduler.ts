@@ -9,7 +9,9 @@
  *   arrives; stale results are dropped, never drawn.
  * - A solve that outlives `cancelAfterMs` while a newer request waits is
  *   cancelled through `cancel` (the bridge terminates the worker) so a slow
- *   study cannot hold the screen behind an outdated answer.
+ *   study cannot hold the screen behind an outdated answer. The solve started
+ *   in its place is never cancelled, so a continuous drag on a slow study
+ *   still shows an answer after at most two solves instead of starving.
  * - `onBusy(true)` fires only when a solve has taken longer than `busyAfterMs`
  *   (about a frame), so quick solves never flash an indicator.
  */
@@ -41,7 +43,7 @@ type Job<P> = { id: number; params: P; tag: number };
 
 export function createSolveScheduler<P, R>(options: SolveSchedulerOptions<P, R>): SolveScheduler<P> {
   const busyAfterMs = options.busyAfterMs ?? 16;
-  const cancelAfterMs = options.cancelAfterMs ?? 400;
+  const cancelAfterMs = options.cancelAfterMs ?? 1000;
   const requestFrame = options.requestFrame ?? ((cb: () => void) => requestAnimationFrame(() => cb()));
   const now = options.now ?? (() => performance.now());
   const setTimer = options.setTimer ?? ((cb: () => void, ms: number) => setTimeout(cb, ms));
@@ -51,7 +53,7 @@ export function createSolveScheduler<P, R>(options: SolveSchedulerOptions<P, R>)
   let frameQueued = false;
   let queued: Job<P> | null = null; // waiting for the next frame
   let pending: Job<P> | null = null; // waiting for the running solve to end
-  let running: { job: Job<P>; startedAt: number } | null = null;
+  let running: { job: Job<P>; startedAt: number; replacedCancelled: boolean } | null = null;
   let busy = false;
   let busyTimer: unknown = null;
   let disposed = false;
@@ -78,8 +80,8 @@ export function createSolveScheduler<P, R>(options: SolveSchedulerOptions<P, R>)
     setBusy(false);
   }
 
-  function start(job: Job<P>) {
-    running = { job, startedAt: now() };
+  function start(job: Job<P>, replacedCancelled = false) {
+    running = { job, startedAt: now(), replacedCancelled };
     armBusyTimer();
     let promise: Promise<R>;
     try {
@@ -117,11 +119,11 @@ export function createSolveScheduler<P, R>(options: SolveSchedulerOptions<P, R>)
       return;
     }
     pending = job;
-    if (options.cancel && now() - running.startedAt > cancelAfterMs) {
+    if (options.cancel && !running.replacedCancelled && now() - running.startedAt > cancelAfterMs) {
       options.cancel();
       running = null;
       pending = null;
-      start(job);
+      start(job, true);
     }
   }
 

@@ -15,8 +15,9 @@ import {
   useStudyEditor,
 } from '../stores/study-editor-store';
 
-const button =
-  'rounded border border-rule bg-paper-raised px-2 py-1 text-sm hover:bg-rule/40 disabled:cursor-not-allowed disabled:opacity-40';
+const buttonBase = 'rounded border px-2 py-1 text-sm disabled:cursor-not-allowed disabled:opacity-40';
+const button = `${buttonBase} border-rule bg-paper-raised hover:bg-rule/40`;
+const primaryButton = `${buttonBase} border-ink bg-ink text-paper hover:bg-ink-soft`;
 
 export function WorkspaceToolbar({ offline, canWrite, onReload }: { offline: boolean; canWrite: boolean; onReload: () => void }) {
   const meta = useStudyEditor((s) => s.meta);
@@ -81,7 +82,7 @@ export function WorkspaceToolbar({ offline, canWrite, onReload }: { offline: boo
           </button>
           <button
             type="button"
-            className={`${button} border-ink bg-ink text-paper hover:bg-ink-soft`}
+            className={primaryButton}
             disabled={offline || !canWrite || !dirty || issueCount > 0}
             title={
               offline
@@ -159,7 +160,7 @@ function SaveForm({ onClose, onReload }: { onClose: () => void; onReload: () => 
           placeholder="e.g. second dwell 20 min shorter; cure still above 0.9"
         />
       </label>
-      <button type="submit" className={`${button} mt-4`} disabled={save.isPending}>
+      <button type="submit" className={`${primaryButton} mt-4`} disabled={save.isPending}>
         {save.isPending ? 'Saving…' : 'Save'}
       </button>
       <button type="button" className={`${button} mt-4`} onClick={onClose}>
