@@ -1,3 +1,4 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import type { StudyParams } from '../schemas/study';
 import { parseStudy } from '../schemas/study';
@@ -251,5 +252,38 @@ describe('mechanics input', () => {
     const state = createMechanics(params, plyPoints(CROSS));
     expect(resinModulusPa(state, 400, 0.1, 300)).toBe(0);
     expectClose(resinModulusPa(state, 300, 0.95, 480), params.resin.modulus.unrelaxedGPa * 1e9, 0.02);
+  });
+});
+
+describe('mechanics on random valid input', () => {
+  it('returns finite stresses, curvature, warpage and spring-in', () => {
+    // Property test (fast-check): whatever the layup, model, constraint and history, no NaN or Infinity escapes.
+    const ref = referenceStudy();
+    fc.assert(
+      fc.property(
+        fc.array(fc.record({ angleDeg: fc.integer({ min: -90, max: 90 }), thicknessMm: fc.double({ min: 0.02, max: 2, noNaN: true }) }), { minLength: 1, maxLength: 12 }),
+        fc.constantFrom('prony' as const, 'chile' as const),
+        fc.constantFrom('free' as const, 'tool-held' as const),
+        fc.array(fc.record({ dT: fc.double({ min: -20, max: 20, noNaN: true }), dA: fc.double({ min: 0, max: 0.2, noNaN: true }), dtS: fc.double({ min: 0, max: 600, noNaN: true }) }), { minLength: 1, maxLength: 40 }),
+        (layup, model, constraint, path) => {
+          const params = study({ layup: { plies: layup }, constraint }, { modulus: { ...ref.resin.modulus, model } });
+          const state = createMechanics(params, plyPoints(layup));
+          let T = 300;
+          let a = 0;
+          const steps = path.map((s) => {
+            T = Math.min(600, Math.max(250, T + s.dT));
+            a = Math.min(0.999, a + s.dA);
+            return { TK: T, alpha: a, dtS: s.dtS };
+          });
+          const last = drive(state, params, steps);
+          demould(state, last.TK, last.alpha, last.tgK);
+          const r = mechanicsResult(state, params);
+          const all = [r.curvature.kx, r.curvature.ky, r.curvature.kxy, r.warpageMm, r.springInDeg, r.resinModulusMidPa,
+            ...r.plyStresses.sigma1Pa, ...r.plyStresses.sigma2Pa, ...r.plyStresses.tau12Pa];
+          return all.every(Number.isFinite);
+        },
+      ),
+      { numRuns: 300 },
+    );
   });
 });
