@@ -1,3 +1,4 @@
+/* eslint-disable @typescript-eslint/no-explicit-any -- these tests build deliberately invalid studies */
 import { describe, expect, it } from 'vitest';
 import { referenceStudy, demoStudies } from '../solver/demo-cards';
 import { StudyInputError, parseStudy, validateStudy, type StudyIssue } from './study';

@@ -69,7 +69,7 @@ describe('simulate: the reference study', () => {
   });
 
   it('refuses invalid input with StudyInputError naming the field', () => {
-    const bad = structuredClone(referenceStudy()) as any;
+    const bad = structuredClone(referenceStudy());
     bad.layup.plies[0].thicknessMm = -1;
     expect(() => simulate(bad)).toThrow(StudyInputError);
     expect(() => simulate(bad)).toThrow(/layup\.plies\.0\.thicknessMm/);
