@@ -209,6 +209,7 @@ export function mechanicsStep(state: MechanicsState, TK: Float64Array, alpha: Fl
   // first is reused for the second (same resin, same step; only the ply angle differs).
   let lastPrevT = NaN;
   let lastPrevA = NaN;
+  let lastPrevRate = NaN;
   let lastWasGelled = -1;
   let th1 = 0;
   let th2 = 0;
@@ -224,13 +225,21 @@ export function mechanicsStep(state: MechanicsState, TK: Float64Array, alpha: Fl
     }
     const prevT = state.prevTK[p];
     const prevA = state.prevAlpha[p];
+    const prevRate = state.prevRate[p];
     const wasGelled = state.gelled[p];
     const same =
-      p > 0 && T === TK[p - 1] && a === alpha[p - 1] && tg === tgK[p - 1] && prevT === lastPrevT && prevA === lastPrevA && wasGelled === lastWasGelled;
+      p > 0 &&
+      T === TK[p - 1] &&
+      a === alpha[p - 1] &&
+      tg === tgK[p - 1] &&
+      prevT === lastPrevT &&
+      prevA === lastPrevA &&
+      prevRate === lastPrevRate &&
+      wasGelled === lastWasGelled;
     lastPrevT = prevT;
     lastPrevA = prevA;
+    lastPrevRate = prevRate;
     lastWasGelled = wasGelled;
-    const prevRate = state.prevRate[p];
     const rate = same ? state.prevRate[p - 1] : prony ? reducedTimeRate(resin.shift, T, tg, a) : 1;
     state.prevTK[p] = T;
     state.prevAlpha[p] = a;
