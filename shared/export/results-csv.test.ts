@@ -138,5 +138,8 @@ describe('resultsToCsv', () => {
     expect(rows.find((r) => r[0] === 'revision')?.[1]).toBe('unsaved edits');
     expect(csvFileName('Two-dwell cycle, "24 plies"', 3)).toBe('dwellform-two-dwell-cycle-24-plies-r3.csv');
     expect(csvFileName('Ölsumpf — Probe', null)).toBe('dwellform-olsumpf-probe-unsaved.csv');
+    expect(csvFileName('Skin panel', null, 'demo')).toBe('dwellform-skin-panel-demo.csv');
+    const demo = parse(resultsToCsv(result(), { ...meta, revision: null, revisionLabel: 'demo study (not in the team library)' }));
+    expect(demo.find((r) => r[0] === 'revision')?.[1]).toBe('demo study (not in the team library)');
   });
 });

@@ -11,6 +11,8 @@ export interface CsvMeta {
   study: string;
   /** revision number; null for unsaved edits */
   revision: number | null;
+  /** written instead of the number when given, e.g. 'demo study (not in the library)' */
+  revisionLabel?: string;
   part?: string;
   params: StudyParams;
   exportedAt: Date;
@@ -62,7 +64,7 @@ export function resultsToCsv(result: CsvResult, meta: CsvMeta): string {
     // Two cells, so a reader that guesses the delimiter from the first lines finds the comma.
     [CSV_TITLE, 'comma-separated, UTF-8, one header block then sections'],
     ['study', meta.study],
-    ['revision', meta.revision === null ? 'unsaved edits' : meta.revision],
+    ['revision', meta.revisionLabel ?? (meta.revision === null ? 'unsaved edits' : meta.revision)],
     ...(meta.part ? [['part', meta.part]] : []),
     ['resin card', describeCard(meta.params.resin)],
     ['fibre card', describeCard(meta.params.fibre)],
@@ -109,7 +111,7 @@ export function resultsToCsv(result: CsvResult, meta: CsvMeta): string {
 }
 
 /** A file name that sorts by study and revision: "dwellform-two-dwell-cycle-r3.csv". */
-export function csvFileName(study: string, revision: number | null): string {
+export function csvFileName(study: string, revision: number | null, withoutRevision = 'unsaved'): string {
   const slug = study
     .toLowerCase()
     .normalize('NFKD')
@@ -117,5 +119,5 @@ export function csvFileName(study: string, revision: number | null): string {
     .replace(/[^a-z0-9]+/g, '-')
     .replace(/^-+|-+$/g, '')
     .slice(0, 60);
-  return `dwellform-${slug || 'study'}-${revision === null ? 'unsaved' : `r${revision}`}.csv`;
+  return `dwellform-${slug || 'study'}-${revision === null ? withoutRevision : `r${revision}`}.csv`;
 }

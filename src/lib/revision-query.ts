@@ -6,6 +6,7 @@
  * a revision comes from is decided here and nowhere else.
  */
 import { queryOptions } from '@tanstack/react-query';
+import type { CsvMeta } from '../../shared/export/results-csv';
 import { parseStudy, type StudyParams } from '../../shared/schemas/study';
 import { demoStudies } from '../../shared/solver/demo-cards';
 import type { StudySummary } from '../../shared/solver/simulation-result';
@@ -153,6 +154,17 @@ export function revisionQueryOptions(ref: string) {
     // Revisions are immutable; only the part's baseline pin can move, and a minute is fresh enough for it.
     staleTime: 60_000,
   });
+}
+
+/** What the CSV header block says about where a revision came from. */
+export function csvMetaOf(rev: RevisionData): Omit<CsvMeta, 'exportedAt'> {
+  return {
+    study: rev.studyTitle,
+    revision: rev.number,
+    revisionLabel: rev.source === 'demo' ? 'demo study (not in the team library)' : undefined,
+    part: rev.part?.label,
+    params: rev.params,
+  };
 }
 
 /** The demo studies a user can compare without signing in. */

@@ -24,7 +24,7 @@ export function CsvDownloadButton({
       onClick={() => {
         if (!result) return;
         const csv = resultsToCsv(result, { ...meta, exportedAt: new Date() });
-        downloadText(csv, csvFileName(meta.study, meta.revision), 'text/csv;charset=utf-8');
+        downloadText(csv, csvFileName(meta.study, meta.revision, meta.revisionLabel ? 'demo' : 'unsaved'), 'text/csv;charset=utf-8');
       }}
     >
       {label}

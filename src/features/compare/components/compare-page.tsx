@@ -9,7 +9,7 @@ import { RunKey } from '../../../components/run-charts/run-history-chart';
 import { useElementWidth } from '../../../components/run-charts/use-element-width';
 import { fileSlug } from '../../../lib/chart-export';
 import { ApiError } from '../../../lib/api-client';
-import { demoRevisionChoices, revisionQueryOptions, type RevisionData } from '../../../lib/revision-query';
+import { csvMetaOf, demoRevisionChoices, revisionQueryOptions, type RevisionData } from '../../../lib/revision-query';
 import { solvedRevisionQueryOptions } from '../../../lib/solve-query';
 import { useComparePair } from '../hooks/use-compare-pair';
 import { MetricsTable } from '../../../components/comparison/metrics-table';
@@ -173,10 +173,10 @@ function Comparison({ a, b, onChoose }: { a: string; b: string; onChoose: (a: st
             Printable report of B
           </Link>
           {revA.data && (
-            <CsvDownloadButton result={solvedA.data} label="CSV of A" meta={{ study: revA.data.studyTitle, revision: revA.data.number, part: revA.data.part?.label, params: revA.data.params }} />
+            <CsvDownloadButton result={solvedA.data} label="CSV of A" meta={csvMetaOf(revA.data)} />
           )}
           {revB.data && (
-            <CsvDownloadButton result={solvedB.data} label="CSV of B" meta={{ study: revB.data.studyTitle, revision: revB.data.number, part: revB.data.part?.label, params: revB.data.params }} />
+            <CsvDownloadButton result={solvedB.data} label="CSV of B" meta={csvMetaOf(revB.data)} />
           )}
         </div>
       </div>

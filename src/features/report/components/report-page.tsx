@@ -11,7 +11,7 @@ import { CsvDownloadButton } from '../../../components/export/csv-download-butto
 import { RunChartSet } from '../../../components/run-charts/run-chart-set';
 import { fileSlug } from '../../../lib/chart-export';
 import { ApiError } from '../../../lib/api-client';
-import { revisionQueryOptions, type RevisionData } from '../../../lib/revision-query';
+import { csvMetaOf, revisionQueryOptions, type RevisionData } from '../../../lib/revision-query';
 import { solvedRevisionQueryOptions } from '../../../lib/solve-query';
 import { ASSUMPTIONS, CAUTIONS, exothermNote } from '../model/report-text';
 import { describeCycleSteps, describeLayup, fibreRows, processRows, resinRows, type Row } from '../model/describe-study';
@@ -24,8 +24,8 @@ function Rows({ rows, testId }: { rows: Row[]; testId?: string }) {
   return (
     <table className="w-full border-collapse text-sm" data-testid={testId}>
       <tbody>
-        {rows.map(([label, value]) => (
-          <tr key={label} className="border-b border-rule/60 align-top">
+        {rows.map(([label, value], i) => (
+          <tr key={`${i}-${label}`} className="border-b border-rule/60 align-top">
             <th scope="row" className="w-56 py-0.5 pr-3 text-left font-normal text-ink-soft">
               {label}
             </th>
@@ -113,7 +113,7 @@ export function ReportPage() {
         >
           Print or save as PDF
         </button>
-        {rev && <CsvDownloadButton result={result} meta={{ study: rev.studyTitle, revision: rev.number, part: rev.part?.label, params: rev.params }} />}
+        {rev && <CsvDownloadButton result={result} meta={csvMetaOf(rev)} />}
       </nav>
 
       <header className="flex flex-col gap-1 border-b-2 border-ink pb-2">

@@ -5,6 +5,7 @@ import { useForkRevision } from '../api/fork-revision';
 import { StaleRevisionError, saveRevision, useSaveRevision } from '../api/save-revision';
 import { validationOf } from '../model/study-validation';
 import { useResults } from '../stores/results-store';
+import { WorkspaceExports } from './workspace-exports';
 import {
   selectCanRedo,
   selectCanUndo,
@@ -60,6 +61,7 @@ export function WorkspaceToolbar({ offline, canWrite, onReload }: { offline: boo
         )}
         <div className="ml-auto flex items-center gap-2">
           <BusyIndicator busy={busy} />
+          <WorkspaceExports />
           <button
             type="button"
             className={button}

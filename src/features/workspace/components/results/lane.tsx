@@ -1,6 +1,8 @@
-import { useMemo, type ReactNode, type PointerEvent as ReactPointerEvent } from 'react';
+import { useMemo, useRef, type ReactNode, type PointerEvent as ReactPointerEvent } from 'react';
 import { scaleLinear, type ScaleLinear } from 'd3-scale';
 import { TimeTicks, ValueTicks, useTimeAxis } from '../../../../components/charts/time-axis';
+import { ChartExportControl } from '../../../../components/export/chart-export-control';
+import { fileSlug } from '../../../../lib/chart-export';
 import { ScrubLine } from '../cycle/cycle-editor';
 import { resultsStore } from '../../stores/results-store';
 
@@ -34,6 +36,7 @@ export function Lane({
   children: (y: ScaleLinear<number, number>, plotHeight: number) => ReactNode;
 }) {
   const axis = useTimeAxis();
+  const svgRef = useRef<SVGSVGElement>(null);
   const plotHeight = height - TOP - (showTimeLabels ? 30 : 8);
   const y = useMemo(() => scaleLinear().domain(domain).range([plotHeight, 0]).nice(4), [domain, plotHeight]);
 
@@ -58,8 +61,11 @@ export function Lane({
             {l.label}
           </span>
         ))}
+        <span className="ml-auto">
+          <ChartExportControl target={svgRef} fileBase={`dwellform-${fileSlug(title)}`} title={title} />
+        </span>
       </figcaption>
-      <svg width={axis.width} height={height} className="block touch-none select-none" aria-label={`${title} against time`} role="img">
+      <svg ref={svgRef} width={axis.width} height={height} className="block touch-none select-none" aria-label={`${title} against time`} role="img">
         <g transform={`translate(${axis.marginLeft},${TOP})`}>
           <ValueTicks y={y} width={axis.plotWidth} unit={unit} count={3} format={format} />
           <TimeTicks height={plotHeight} showLabels={showTimeLabels} />
