@@ -140,8 +140,9 @@ function enterSegment(program: CycleProgram, state: CycleState, tS: number): voi
   state.clockStartS = seg.kind === 'hold' && seg.lagging ? -1 : tS;
 }
 
-/** Air, tool-side air, pressure and set point at time t within the current segment. */
-export function airAt(program: CycleProgram, state: CycleState, tS: number): AirConditions {
+/** Air, tool-side air, pressure and set point at time t within the current segment (written into `out` if given). */
+export function airAt(program: CycleProgram, state: CycleState, tS: number, out?: AirConditions): AirConditions {
+  const o = out ?? { airK: 0, toolAirK: 0, pressurePa: 0, setpointK: 0 };
   if (program.kind === 'record') {
     const { timeS, airK, toolK, pressurePa } = program;
     const last = timeS.length - 1;
@@ -151,17 +152,10 @@ export function airAt(program: CycleProgram, state: CycleState, tS: number): Air
     const span = timeS[i + 1] - timeS[i];
     const f = Math.min(1, Math.max(0, (tS - timeS[i]) / span));
     const air = airK[i] + f * (airK[i + 1] - airK[i]);
-    return {
-      airK: air,
-      toolAirK: toolK[i] + f * (toolK[i + 1] - toolK[i]),
-      pressurePa: pressurePa[i] + f * (pressurePa[i + 1] - pressurePa[i]),
-      setpointK: air,
-    };
+    return fill(o, air, toolK[i] + f * (toolK[i + 1] - toolK[i]), pressurePa[i] + f * (pressurePa[i + 1] - pressurePa[i]), air);
   }
   const seg = program.segments[Math.min(state.index, program.segments.length - 1)];
-  if (state.done) {
-    return { airK: seg.toK, toolAirK: seg.toK, pressurePa: seg.pressurePa, setpointK: seg.toK };
-  }
+  if (state.done) return fill(o, seg.toK, seg.toK, seg.pressurePa, seg.toK);
   let air: number;
   if (seg.kind === 'hold') air = seg.toK;
   else {
@@ -169,7 +163,15 @@ export function airAt(program: CycleProgram, state: CycleState, tS: number): Air
     // Clamp on the target: the loop lands on the end, but never overshoot through rounding.
     air = seg.rateKPerS > 0 ? Math.min(air, seg.toK) : Math.max(air, seg.toK);
   }
-  return { airK: air, toolAirK: air, pressurePa: seg.pressurePa, setpointK: air };
+  return fill(o, air, air, seg.pressurePa, air);
+}
+
+function fill(o: AirConditions, airK: number, toolAirK: number, pressurePa: number, setpointK: number): AirConditions {
+  o.airK = airK;
+  o.toolAirK = toolAirK;
+  o.pressurePa = pressurePa;
+  o.setpointK = setpointK;
+  return o;
 }
 
 /** |d(air)/dt| in the current segment, K/s (for the step limit on the air change). */

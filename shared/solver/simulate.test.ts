@@ -84,6 +84,35 @@ describe('simulate: the reference study', () => {
   });
 });
 
+describe('simulate: lagging-part holds', () => {
+  it('starts the hold clock at the first step where the coldest laminate node is inside the band', () => {
+    const p = study({
+      layup: { plies: quasiIsotropic(64) },
+      cycle: {
+        kind: 'segments',
+        startC: 20,
+        segments: [
+          { kind: 'ramp', rateCPerMin: 3, targetC: 120, pressureBar: 7 },
+          { kind: 'hold', holdMin: 30, pressureBar: 7, start: 'lagging-part', bandC: 2 },
+          { kind: 'cool', rateCPerMin: 3, targetC: 60, pressureBar: 7 },
+        ],
+      },
+    });
+    const r = simulate(p, { recordProfiles: true });
+    const [, rampEnd, holdEnd] = r.segmentBoundsS;
+    const clockStart = holdEnd - minToS(30);
+    // 12 mm on a 10 mm aluminium plate lags the air by minutes: the clock starts well after the ramp ends
+    expect(clockStart - rampEnd).toBeGreaterThan(60);
+    const nodes = r.profiles.zM.length;
+    const coldest = (i: number) => Math.min(...r.profiles.temperatureK.subarray(i * nodes, (i + 1) * nodes));
+    const i = r.history.timeS.findIndex((t) => Math.abs(t - clockStart) < 1e-6);
+    expect(i).toBeGreaterThan(0);
+    const lower = cToK(120 - 2);
+    expect(coldest(i)).toBeGreaterThanOrEqual(lower);
+    expect(coldest(i - 1)).toBeLessThan(lower);
+  });
+});
+
 describe('simulate: Lee–Loos–Springer two-dwell cycle, thin part following the air', () => {
   it('matches the reference α at 36.4, 96.4, 120.8, 150.8 and 240.8 min within 0.5 %', () => {
     // Check values: physics.md §8, computed with SciPy LSODA (rtol 1e-10) from the constants of

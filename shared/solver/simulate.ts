@@ -144,6 +144,7 @@ export function simulate(input: StudyParams, options: SimulateOptions = {}): Sim
   record(0, air0.airK, air0.toolAirK, air0.pressurePa, air0.setpointK);
 
   // --- the loop ---
+  const airNow = { ...air0 };
   let t = 0;
   let steps = 0;
   let naturalDt = limits.maxStepS;
@@ -173,7 +174,7 @@ export function simulate(input: StudyParams, options: SimulateOptions = {}): Sim
       if (dt > 0.5 * remaining) dt = 0.5 * remaining;
       tNext = t + dt;
     }
-    const air = airAt(program, cycle, tNext);
+    const air = airAt(program, cycle, tNext, airNow);
     advanceThermochemical(tc, dt, air.airK, air.toolAirK);
     t = tNext;
     steps++;
