@@ -28,7 +28,7 @@ export function WorkspaceExports() {
       {saved && (
         <>
           <Link className={link} to={`/compare?b=${saved}`} title={`Compare revision ${meta!.baseRevision} with the part's baseline`}>
-            Compare
+            Compare with baseline
           </Link>
           <Link className={link} to={`/report?r=${saved}`} title={`Printable report of revision ${meta!.baseRevision}`}>
             Report
