@@ -15,7 +15,7 @@ import { AssumptionsNote } from './assumptions-note';
 import { CycleEditor } from './cycle/cycle-editor';
 import { SegmentTable } from './cycle/segment-table';
 import { HistoryLanes } from './results/history-lanes';
-import { KeyFigures } from './results/key-figures';
+import { KeyFigures, SolveCounter } from './results/key-figures';
 import { LimitsVerdicts } from './results/limits-verdicts';
 import { PlyStressChart } from './results/ply-stress-chart';
 import { ScrubControl } from './results/scrub-control';
@@ -110,6 +110,7 @@ function Workspace({ study, onReload }: { study: WorkspaceStudy; onReload: () =>
             </TimeAxisProvider>
           </div>
           <PaintProbe />
+          <SolveCounter />
         </section>
         <aside aria-label="Verdicts and the part after cure" className="border-l border-rule bg-paper-raised/60 lg:col-span-2 2xl:col-span-1">
           <div className="grid grid-cols-1 lg:grid-cols-2 2xl:grid-cols-1">

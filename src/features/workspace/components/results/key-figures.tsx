@@ -1,5 +1,6 @@
 import { memo } from 'react';
 import { useResults } from '../../stores/results-store';
+import { formatSignificant } from '../../model/format';
 
 function Figure({ label, value, unit, testId, warn }: { label: string; value: string; unit: string; testId?: string; warn?: boolean }) {
   return (
@@ -10,6 +11,16 @@ function Figure({ label, value, unit, testId, warn }: { label: string; value: st
         {unit && <span className="ml-1 text-xs text-ink-faint">{unit}</span>}
       </dd>
     </div>
+  );
+}
+
+/** How many solves the worker was asked for; read by the end-to-end test that proves invalid input is never sent. */
+export function SolveCounter() {
+  const count = useResults((s) => s.solveCount);
+  return (
+    <span hidden data-testid="solve-count">
+      {count}
+    </span>
   );
 }
 
@@ -26,8 +37,8 @@ export const KeyFigures = memo(function KeyFigures() {
       <Figure label="Final Tg" value={s.finalTgC.toFixed(1)} unit="°C" />
       <Figure label="Peak part temperature" value={s.peakPartC.toFixed(1)} unit="°C" />
       <Figure label="Exotherm overshoot" value={s.peakOvershootC.toFixed(1)} unit="°C" warn={fail('maxOvershootC')} />
-      <Figure label="Warpage" value={s.warpageMm.toFixed(3)} unit="mm" testId="warpage-key-figure" warn={fail('maxWarpageMm')} />
-      <Figure label="Spring-in" value={s.springInDeg.toFixed(3)} unit="°" warn={fail('maxSpringInDeg')} />
+      <Figure label="Warpage" value={formatSignificant(s.warpageMm)} unit="mm" testId="warpage-key-figure" warn={fail('maxWarpageMm')} />
+      <Figure label="Spring-in" value={formatSignificant(s.springInDeg)} unit="°" warn={fail('maxSpringInDeg')} />
       <Figure label="Cycle to demould" value={s.cycleMin.toFixed(0)} unit="min" warn={fail('maxCycleMin')} />
       <Figure label="Solve" value={solveMs === null ? '–' : solveMs.toFixed(0)} unit={`ms · ${s.steps} steps`} />
     </dl>

@@ -1,6 +1,7 @@
 import { memo } from 'react';
 import { useResults } from '../../stores/results-store';
 import { useStudyEditor } from '../../stores/study-editor-store';
+import { formatSignificant } from '../../model/format';
 
 const W = 320;
 
@@ -40,13 +41,13 @@ export const WarpView = memo(function WarpView() {
         <p>
           <span className="block text-ink-soft">Warpage over {spanMm} mm</span>
           <span className="num text-base text-ink" data-testid="warpage-figure">
-            {warpageMm.toFixed(3)} mm
+            {formatSignificant(warpageMm)} mm
           </span>
         </p>
         <p>
           <span className="block text-ink-soft">Spring-in of the {cornerDeg}° corner</span>
           <span className="num text-base text-ink" data-testid="spring-in-figure">
-            {springInDeg.toFixed(3)}°
+            {formatSignificant(springInDeg)}°
           </span>
         </p>
       </div>

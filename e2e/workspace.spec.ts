@@ -1,0 +1,83 @@
+import { expect, test, type Page } from '@playwright/test';
+
+// The seeded demo library (server/db/seed/demo-studies.ts): part TB-2407 holds the study
+// "Two-dwell cycle for the 24-ply panel", owned by the lead amara.okafor.
+const STUDY_TITLE = 'Two-dwell cycle for the 24-ply panel';
+
+async function signInAs(page: Page, login: string) {
+  await page.goto('/api/auth/github?next=/');
+  await page.locator(`a[data-login="${login}"]`).click();
+  await page.waitForURL((url) => !url.pathname.startsWith('/login') && !url.pathname.startsWith('/api'));
+}
+
+async function demoStudyId(page: Page): Promise<number> {
+  const teams = (await (await page.request.get('/api/teams')).json()) as { id: number }[];
+  for (const team of teams) {
+    const parts = (await (await page.request.get(`/api/teams/${team.id}/parts`)).json()) as { id: number }[];
+    for (const part of parts) {
+      const detail = (await (await page.request.get(`/api/parts/${part.id}`)).json()) as { studies: { id: number; title: string }[] };
+      const study = detail.studies.find((s) => s.title === STUDY_TITLE);
+      if (study) return study.id;
+    }
+  }
+  throw new Error(`the seeded study "${STUDY_TITLE}" was not found`);
+}
+
+async function openDemoStudy(page: Page) {
+  await signInAs(page, 'amara.okafor');
+  const id = await demoStudyId(page);
+  await page.goto(`/studies/${id}`);
+  await expect(page.getByRole('heading', { level: 1, name: STUDY_TITLE })).toBeVisible();
+  await expect(page.getByTestId('final-cure-figure')).toHaveText(/^\d\.\d{3}$/);
+}
+
+test('dragging the second dwell’s end with the mouse shortens it and the final cure and warpage follow', async ({ page }) => {
+  await openDemoStudy(page);
+  const cure = page.getByTestId('final-cure-figure');
+  const warpage = page.getByTestId('warpage-figure');
+  const cureBefore = await cure.textContent();
+  const warpageBefore = await warpage.textContent();
+
+  const handle = page.getByRole('slider', { name: 'Dwell 2 end' });
+  const lengthBefore = Number(await handle.getAttribute('aria-valuenow'));
+  const box = (await handle.boundingBox())!;
+  const x = box.x + box.width / 2;
+  const y = box.y + box.height / 2;
+  await page.mouse.move(x, y);
+  await page.mouse.down();
+  for (let i = 1; i <= 20; i++) await page.mouse.move(x - i * 8, y);
+  await page.mouse.up();
+
+  const lengthAfter = Number(await handle.getAttribute('aria-valuenow'));
+  expect(lengthAfter).toBeLessThan(lengthBefore - 20);
+  await expect(page.getByTestId('unsaved-marker')).toHaveText(/unsaved/);
+  // A shorter final dwell leaves the laminate less cured; the residual-stress state, and so the warpage, moves with it.
+  await expect(cure).not.toHaveText(cureBefore!);
+  expect(Number(await cure.textContent())).toBeLessThan(Number(cureBefore));
+  await expect(warpage).not.toHaveText(warpageBefore!);
+});
+
+test('an invalid ramp rate is marked with its reason and never reaches the solver', async ({ page }) => {
+  await openDemoStudy(page);
+  const solves = page.getByTestId('solve-count');
+  await expect(solves).not.toHaveText('0');
+  // Let the opening solve settle so the count is stable.
+  await expect(page.getByTestId('final-cure-figure')).toBeVisible();
+  const countBefore = await solves.textContent();
+  const cureBefore = await page.getByTestId('final-cure-figure').textContent();
+
+  const rate = page.getByLabel('Ramp 1 rate');
+  await rate.fill('25');
+  const row = page.getByTestId('segment-row-0');
+  // The shared schema allows ramp rates above 0 and up to 20 °C/min.
+  await expect(row.getByRole('alert')).toHaveText(/25 °C\/min is out of range: allowed .*≤ 20 °C\/min/);
+  await expect(rate).toHaveAttribute('aria-invalid', 'true');
+  await expect(page.getByTestId('invalid-marker')).toBeVisible();
+  await page.waitForTimeout(1500);
+  await expect(solves).toHaveText(countBefore!);
+  await expect(page.getByTestId('final-cure-figure')).toHaveText(cureBefore!);
+
+  // Back to a valid rate: the solver runs again.
+  await rate.fill('1.5');
+  await expect(solves).not.toHaveText(countBefore!);
+});
