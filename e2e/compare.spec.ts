@@ -119,14 +119,16 @@ test('a fork compared with the baseline shows deltas, the flipped limit, a CSV w
   await expect(page.getByTestId('report-cautions')).toContainText('never replace');
   await expect(page.getByTestId('report-cautions')).toContainText('Exotherm risk');
   await expect(page.getByTestId('run-charts').locator('svg[role="img"]')).toHaveCount(5);
+  // Count calls to the browser's print dialog instead of opening it (globalThis is the page's window there).
   await page.evaluate(() => {
-    (window as unknown as { printed: number }).printed = 0;
-    window.print = () => {
-      (window as unknown as { printed: number }).printed += 1;
+    const w = globalThis as unknown as { printed: number; print: () => void };
+    w.printed = 0;
+    w.print = () => {
+      w.printed += 1;
     };
   });
   await page.getByRole('button', { name: 'Print or save as PDF' }).click();
-  expect(await page.evaluate(() => (window as unknown as { printed: number }).printed)).toBe(1);
+  expect(await page.evaluate(() => (globalThis as unknown as { printed: number }).printed)).toBe(1);
   // On paper the report carries no buttons.
   await page.emulateMedia({ media: 'print' });
   await expect(page.getByRole('button', { name: 'Print or save as PDF' })).toBeHidden();
