@@ -113,6 +113,40 @@ describe('simulate: lagging-part holds', () => {
   });
 });
 
+describe('simulate: measured records', () => {
+  it('follows the recorded air linearly, lands on record points and applies the tool column to the tool side', () => {
+    const p = study({
+      cycle: {
+        kind: 'record',
+        points: [
+          { timeMin: 0, airC: 20, toolC: 20, pressureBar: 0 },
+          { timeMin: 60, airC: 140, toolC: 100, pressureBar: 7 },
+          { timeMin: 120, airC: 140, toolC: 100 },
+          { timeMin: 150, airC: 60, toolC: 60, pressureBar: 0 },
+        ],
+      },
+      heatTransfer: { bagSideWPerM2K: 500, toolSideWPerM2K: 500 },
+    });
+    const r = simulate(p);
+    expect(Array.from(r.segmentBoundsS)).toEqual([0, 9000]);
+    for (const tMin of [60, 120, 150]) expect(r.history.timeS.some((t) => Math.abs(t - minToS(tMin)) < 1e-6)).toBe(true);
+    // linear interpolation between the record points: 80 °C at 30 min, 100 °C at 135 min
+    expectClose(at(r, r.history.airK, minToS(30)), cToK(80), 1e-9);
+    expectClose(at(r, r.history.airK, minToS(135)), cToK(100), 1e-9);
+    expectClose(at(r, r.history.pressurePa, minToS(30)), 3.5e5, 1e-9);
+    // After an hour at 140 °C air over the bag and 100 °C under the tool the column is near steady conduction
+    // through series resistances (closed form): 1/h + t_lam/k_z + t_tool/k_tool + 1/h, with k_z of the demo
+    // ply from the Halpin–Tsai-type form of physics.md §3: 0.2·(2.6 + 2.2·0.58)/(2.6 − 2.2·0.58) = 0.5855 W/(m·K).
+    // R = 0.002 + 0.00456/0.5855 + 0.010/167 + 0.002 = 0.011848 m²K/W, q = 40/R = 3376 W/m²,
+    // so the tool's back face sits q/h = 6.75 K above the 100 °C tool-side temperature.
+    const toolBack = at(r, r.history.toolK, minToS(119));
+    const bag = at(r, r.history.bagSurfaceK, minToS(119));
+    expect(Math.abs(toolBack - cToK(106.75))).toBeLessThan(0.5);
+    expect(Math.abs(bag - cToK(140 - 6.75))).toBeLessThan(0.5);
+    expect(r.summary.cycleMin).toBeCloseTo(150, 9);
+  });
+});
+
 describe('simulate: Lee–Loos–Springer two-dwell cycle, thin part following the air', () => {
   it('matches the reference α at 36.4, 96.4, 120.8, 150.8 and 240.8 min within 0.5 %', () => {
     // Check values: physics.md §8, computed with SciPy LSODA (rtol 1e-10) from the constants of
@@ -171,6 +205,8 @@ describe('simulate: exotherm of thick sections', () => {
     // the adiabatic rise bounds what any section can reach: ΔT_ad = (1−Vf)ρ_r H_R/(ρc_p) (physics.md §3)
     expect(thick.summary.peakPartC).toBeLessThan(180 + thick.summary.adiabaticRiseC);
     expect(thick.summary.peakOvershootZMm).toBeGreaterThan(2);
+    // and the heat bookkeeping closed within 0.5 % (physics.md §3), or the summary would carry a warning
+    expect(thick.summary.warnings).toEqual([]);
   });
 });
 
