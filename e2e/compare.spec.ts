@@ -56,7 +56,7 @@ async function forkWithFasterRamp(request: APIRequestContext, baseline: Baseline
   return { studyId: fork.id, title: fork.title, number: 2 };
 }
 
-test('a fork compared with the baseline shows deltas, the flipped limit, a CSV with its header, and the printable report', async ({ page }) => {
+test('a fork compared with the baseline shows deltas, the flipped limit, a CSV with its header, and the printable report', async ({ page, browser }) => {
   test.setTimeout(120_000);
   await signInAs(page, 'tomas.reed');
   const baseline = await baselineOf(page.request, PART_NUMBER);
@@ -83,6 +83,24 @@ test('a fork compared with the baseline shows deltas, the flipped limit, a CSV w
   // Both runs overlaid on each chart, each with its own key.
   await expect(page.getByTestId('chart-temperatures').locator('[data-run]')).toHaveCount(2);
   await expect(page.getByTestId('figures-source')).toContainText('Recomputed in this browser');
+
+  // The link is the comparison: a viewer of the team opens it and sees the same verdicts; someone signed out is
+  // asked to sign in and brought back to it.
+  const shared = page.url();
+  const viewer = await browser.newPage();
+  await signInAs(viewer, 'ines.varga');
+  await viewer.goto(shared);
+  await expect(viewer.locator('[data-limit="maxHeatRateCPerMin"]')).toHaveAttribute('data-flip', 'now-fails');
+  await expect(viewer.getByTestId('param-diff')).toContainText('→ 5 °C/min');
+  await viewer.close();
+  const stranger = await browser.newPage();
+  await stranger.goto(shared);
+  await expect(stranger.getByRole('alert')).toContainText('Sign in to read revisions');
+  await stranger.getByRole('link', { name: 'Sign in' }).click();
+  await stranger.locator('a[data-login="ines.varga"]').click();
+  await expect(stranger).toHaveURL(shared);
+  await expect(stranger.locator('[data-limit="maxHeatRateCPerMin"]')).toHaveAttribute('data-flip', 'now-fails');
+  await stranger.close();
 
   // CSV of B: header block, then one row per solver step (the server's stored summary says how many steps).
   const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'CSV of B' }).click()]);

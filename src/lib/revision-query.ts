@@ -156,6 +156,12 @@ export function revisionQueryOptions(ref: string) {
   });
 }
 
+/** Sign in and come back to this page (a shared link opened before signing in). */
+export function signInHref(): string {
+  const here = typeof window === 'undefined' ? '/' : `${window.location.pathname}${window.location.search}`;
+  return `/api/auth/github?next=${encodeURIComponent(here)}`;
+}
+
 /** What the CSV header block says about where a revision came from. */
 export function csvMetaOf(rev: RevisionData): Omit<CsvMeta, 'exportedAt'> {
   return {

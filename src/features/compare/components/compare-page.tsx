@@ -9,7 +9,7 @@ import { RunKey } from '../../../components/run-charts/run-history-chart';
 import { useElementWidth } from '../../../components/run-charts/use-element-width';
 import { fileSlug } from '../../../lib/chart-export';
 import { ApiError } from '../../../lib/api-client';
-import { csvMetaOf, demoRevisionChoices, revisionQueryOptions, type RevisionData } from '../../../lib/revision-query';
+import { csvMetaOf, demoRevisionChoices, revisionQueryOptions, signInHref, type RevisionData } from '../../../lib/revision-query';
 import { solvedRevisionQueryOptions } from '../../../lib/solve-query';
 import { useComparePair } from '../hooks/use-compare-pair';
 import { MetricsTable } from '../../../components/comparison/metrics-table';
@@ -27,6 +27,14 @@ function Problem({ title, error }: { title: string; error: unknown }) {
     <div role="alert" className="rounded border border-fault bg-fault-soft p-3 text-sm">
       <p className="font-semibold">{title}</p>
       <p>{explain(error)}</p>
+      {error instanceof ApiError && error.status === 401 && (
+        <p className="mt-1">
+          <a className="font-medium underline" href={signInHref()}>
+            Sign in
+          </a>{' '}
+          and this comparison opens again.
+        </p>
+      )}
       <p className="mt-1 text-ink-soft">
         Check the link, or <Link className="underline" to="/compare?a=demo0&b=demo2">open the demo comparison</Link>.
       </p>

@@ -11,7 +11,7 @@ import { CsvDownloadButton } from '../../../components/export/csv-download-butto
 import { RunChartSet } from '../../../components/run-charts/run-chart-set';
 import { fileSlug } from '../../../lib/chart-export';
 import { ApiError } from '../../../lib/api-client';
-import { csvMetaOf, revisionQueryOptions, type RevisionData } from '../../../lib/revision-query';
+import { csvMetaOf, revisionQueryOptions, signInHref, type RevisionData } from '../../../lib/revision-query';
 import { solvedRevisionQueryOptions } from '../../../lib/solve-query';
 import { ASSUMPTIONS, CAUTIONS, exothermNote } from '../model/report-text';
 import { describeCycleSteps, describeLayup, fibreRows, processRows, resinRows, type Row } from '../model/describe-study';
@@ -152,6 +152,15 @@ export function ReportPage() {
       {error ? (
         <p role="alert" className="rounded border border-fault bg-fault-soft p-3 text-sm">
           The report could not be made: {explain(error)}
+          {error instanceof ApiError && error.status === 401 && (
+            <>
+              {' '}
+              <a className="font-medium underline" href={signInHref()}>
+                Sign in
+              </a>{' '}
+              and it opens again.
+            </>
+          )}
         </p>
       ) : !rev || !result ? (
         <p className="text-sm text-ink-soft">Solving the study…</p>
