@@ -75,6 +75,16 @@ describe('simulate: the reference study', () => {
     expect(() => simulate(bad)).toThrow(/layup\.plies\.0\.thicknessMm/);
   });
 
+  it('fills the hold defaults itself when a stored study left them out', () => {
+    const raw = structuredClone(referenceStudy()) as StudyParamsInput;
+    if (raw.cycle.kind === 'segments') {
+      for (const seg of raw.cycle.segments) if (seg.kind === 'hold') Object.assign(seg, { start: undefined, bandC: undefined });
+    }
+    const r = simulate(raw);
+    // clock-started holds: exactly the scheduled 300 min (closed form, see cycle tests)
+    expect(r.summary.cycleMin).toBeCloseTo(300, 9);
+  });
+
   it('returns fresh typed arrays on every call', () => {
     const p = referenceStudy();
     const a = simulate(p);

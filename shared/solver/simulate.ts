@@ -1,4 +1,4 @@
-import { StudyInputError, validateStudy, type StudyParams } from '../schemas/study';
+import { StudyInputError, validateStudy, type StudyParamsInput } from '../schemas/study';
 import { glassTransitionK } from './glass-transition';
 import { advanceCycle, airAt, airRateKPerS, createCycleState, nextEventS, prepareCycle, scheduledDurationS, TIME_EPS_S } from './cycle';
 import { createMechanics, demould, mechanicsResult, mechanicsStep, primeMechanics, resinModulusPa } from './mechanics';
@@ -63,8 +63,11 @@ function nextRow(r: Recorder): number {
   return r.length++;
 }
 
-/** Run one study. Throws StudyInputError (fields, values, allowed ranges) on invalid input. */
-export function simulate(input: StudyParams, options: SimulateOptions = {}): SimulationResult {
+/**
+ * Run one study. Accepts a parsed study or one with defaults still left out (hold start and band); throws
+ * StudyInputError (fields, values, allowed ranges) on invalid input.
+ */
+export function simulate(input: StudyParamsInput, options: SimulateOptions = {}): SimulationResult {
   const checked = validateStudy(input);
   if (!checked.ok) throw new StudyInputError(checked.issues);
   const params = checked.params;
