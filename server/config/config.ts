@@ -83,7 +83,8 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
   const publicUrl = e.PUBLIC_URL ?? `http://${e.HOST}:${e.PORT}`;
   const fake = !e.GITHUB_CLIENT_ID || !e.GITHUB_CLIENT_SECRET;
   const fakeBase = `http://127.0.0.1:${e.FAKE_OAUTH_PORT}`;
-  const usesFakeMail = e.SMTP_HOST === '127.0.0.1' && e.SMTP_PORT === 5182;
+  // Mail to a loopback relay without credentials is the local fake (tools/dev/fake-mail.ts).
+  const usesFakeMail = e.SMTP_HOST === '127.0.0.1' && !e.SMTP_USER;
   return {
     env: e.NODE_ENV,
     host: e.HOST,

@@ -7,6 +7,7 @@ import { TEST_DB_NAME } from '../test/test-env';
 
 // A scratch database of its own, so reverting migrations never disturbs the shared test schema.
 const SCRATCH = `${TEST_DB_NAME}_migrations`;
+// The library's tables; later migrations may add more.
 const EXPECTED_TABLES = [
   'audit_events', 'invites', 'materials', 'memberships', 'parts', 'reviews',
   'revisions', 'sessions', 'studies', 'teams', 'uploads', 'users',
@@ -40,7 +41,7 @@ describe('migrations', () => {
   it('create the whole data model on an empty database', async () => {
     const applied = await createMigrator(sequelize, { quiet: true }).up();
     expect(applied.length).toBeGreaterThanOrEqual(4);
-    expect(await tables()).toEqual(EXPECTED_TABLES);
+    expect(await tables()).toEqual(expect.arrayContaining(EXPECTED_TABLES));
   });
 
   it('refuse a second revision with the same number in one study', async () => {
@@ -59,7 +60,7 @@ describe('migrations', () => {
     expect(await tables()).toEqual([]);
     expect(await migrator.executed()).toEqual([]);
     await migrator.up();
-    expect(await tables()).toEqual(EXPECTED_TABLES);
+    expect(await tables()).toEqual(expect.arrayContaining(EXPECTED_TABLES));
     expect(await migrator.pending()).toEqual([]);
   });
 });

@@ -3,6 +3,7 @@ import { createSequelize } from './sequelize';
 import { createMigrator } from './migrator';
 import { initModels } from '../models/index';
 import { seedDemo, type SeedOptions } from './seed/seed';
+import { closeSummaryPool } from '../services/revision-summary.service';
 
 /**
  * What `npm start` and `npm run dev` do before serving: apply pending
@@ -18,6 +19,7 @@ export async function prepareDatabase(config: Config = loadConfig(), options: Se
       console.log(created ? 'database: demo scenario seeded' : 'database: demo scenario already present');
     }
   } finally {
+    await closeSummaryPool();
     await sequelize.close();
   }
 }

@@ -23,21 +23,31 @@ probe.get('/probe/async-explode', async () => {
 });
 
 const app = createApp({ config: db.config, sequelize: db.sequelize, apiRouters: [probe], logError: (e) => logged.push(e) });
+afterAll(() => app.locals.shutdown());
+
+/** POSTs as the client does: same session, with its CSRF token. */
+async function post(url: string, payload: string | object) {
+  const agent = request.agent(app);
+  const { body } = await agent.get('/api/auth/csrf');
+  return agent.post(url).set('X-CSRF-Token', body.csrfToken).set('Content-Type', 'application/json').send(payload);
+}
 
 describe('error handling', () => {
   it('turns a validation error into 400 naming the field and the limit', async () => {
-    const res = await request(app).post('/api/probe/validate').send({ dwell: { holdMin: 5000 } }).expect(400);
+    const res = await post('/api/probe/validate', { dwell: { holdMin: 5000 } });
+    expect(res.status).toBe(400);
     expect(res.body.field).toBe('dwell.holdMin');
     expect(res.body.error).toContain('dwell.holdMin');
     expect(res.body.error).toContain('1440');
   });
 
   it('accepts the same body inside the limit', async () => {
-    await request(app).post('/api/probe/validate').send({ dwell: { holdMin: 120 } }).expect(200);
+    expect((await post('/api/probe/validate', { dwell: { holdMin: 120 } })).status).toBe(200);
   });
 
   it('answers malformed JSON with 400, not 500', async () => {
-    const res = await request(app).post('/api/probe/validate').set('Content-Type', 'application/json').send('{"dwell":').expect(400);
+    const res = await post('/api/probe/validate', '{"dwell":');
+    expect(res.status).toBe(400);
     expect(res.body.error).toMatch(/JSON/);
   });
 

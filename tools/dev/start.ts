@@ -7,6 +7,7 @@
 import { loadConfig } from '../../server/config/index';
 import { prepareDatabase } from '../../server/db/prepare';
 import { runOrExit, supervise } from './run';
+import { startFakes } from './fakes';
 
 const config = loadConfig({ ...process.env, NODE_ENV: 'production' });
 const skipBuild = process.argv.includes('--no-build') || process.env.SKIP_BUILD === '1';
@@ -20,11 +21,13 @@ try {
 }
 if (!skipBuild) runOrExit('npx', ['vite', 'build', '--logLevel', 'warn'], 'Building the client');
 
+try {
+  await startFakes({ ...process.env, NODE_ENV: 'production' });
+} catch (err) {
+  console.error(`Starting the local fake OAuth/mail servers failed: ${(err as Error).message}`);
+  process.exit(1);
+}
+
 supervise([
-  {
-    name: 'server',
-    command: 'npx',
-    args: ['tsx', 'server/index.ts'],
-    options: { env: { ...process.env, NODE_ENV: 'production', DWELLFORM_FAKES: process.env.DWELLFORM_FAKES ?? '1' } },
-  },
+  { name: 'server', command: 'npx', args: ['tsx', 'server/index.ts'], options: { env: { ...process.env, NODE_ENV: 'production' } } },
 ]);

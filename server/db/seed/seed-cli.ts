@@ -3,6 +3,7 @@ import { loadConfig } from '../../config/index';
 import { createSequelize } from '../sequelize';
 import { initModels } from '../../models/index';
 import { seedDemo } from './seed';
+import { closeSummaryPool } from '../../services/revision-summary.service';
 
 const sequelize = createSequelize(loadConfig().db);
 try {
@@ -12,5 +13,6 @@ try {
   console.error(`seed failed: ${(err as Error).message}`);
   process.exitCode = 1;
 } finally {
+  await closeSummaryPool();
   await sequelize.close();
 }

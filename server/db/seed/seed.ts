@@ -1,12 +1,13 @@
 import type { Sequelize } from 'sequelize';
 import type { Models } from '../../models/index';
 import { DEMO_TEAM, DEMO_USERS, DEMO_SHOP } from './demo-users';
-import { studyParamsSchema } from '../../../shared/schemas/index';
+import { studyParamsSchema, type StudyParams } from '../../../shared/schemas/index';
 import { DEMO_PARTS } from './demo-studies';
+import { summarizeStudy } from '../../services/revision-summary.service';
 
 export interface SeedOptions {
-  /** Computes a revision's summary from its params (the shared solver); null when absent. */
-  summarize?: (params: unknown) => unknown;
+  /** Computes a revision's summary from its params; defaults to the shared solver, as every save does. */
+  summarize?: (params: StudyParams) => unknown;
 }
 
 /**
@@ -16,7 +17,7 @@ export interface SeedOptions {
  */
 export async function seedDemo(sequelize: Sequelize, models: Models, options: SeedOptions = {}): Promise<{ created: boolean }> {
   const { User, Team, Membership, Part, Study, Revision, AuditEvent } = models;
-  const summarize = options.summarize ?? (() => null);
+  const summarize = options.summarize ?? ((p: StudyParams) => summarizeStudy(p, () => {}));
   if (await Team.findOne({ where: { slug: DEMO_TEAM.slug } })) return { created: false };
 
   await sequelize.transaction(async (transaction) => {
@@ -68,7 +69,7 @@ export async function seedDemo(sequelize: Sequelize, models: Models, options: Se
               studyId: study.id,
               number: i + 1,
               params,
-              summary: summarize(params),
+              summary: await summarize(params),
               authorId: idOf(demoRevision.author),
               message: demoRevision.message,
               basedOnNumber: i === 0 ? null : i,

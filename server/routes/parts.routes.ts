@@ -1,0 +1,90 @@
+import { Router, type Request } from 'express';
+import type { Sequelize } from 'sequelize';
+import { currentUser, requireTeamRole } from '../auth/access';
+import { Part, Revision, Study, User } from '../models/index';
+import { badRequest } from '../middleware/http-error';
+import { recordAudit } from '../services/audit.service';
+import { createStudy } from '../services/study.service';
+import { baselineView } from './teams.routes';
+import { createStudyBody, idParam, pinBaselineBody } from './request-schemas';
+
+export const teamOfPart = async (req: Request) => {
+  const id = idParam(req.params.partId);
+  const part = id ? await Part.findByPk(id, { attributes: ['teamId'] }) : null;
+  return part?.teamId ?? null;
+};
+
+export function partRoutes(sequelize: Sequelize): Router {
+  const router = Router();
+
+  router.get('/parts/:partId', requireTeamRole('read', teamOfPart), async (req, res) => {
+    const part = (await Part.findByPk(idParam(req.params.partId)!))!;
+    const studies = await Study.findAll({
+      where: { partId: part.id },
+      include: [{ model: User, as: 'owner', attributes: ['id', 'login', 'name'] }],
+      order: [['updatedAt', 'DESC']],
+    });
+    res.json({
+      id: part.id,
+      teamId: part.teamId,
+      partNumber: part.partNumber,
+      name: part.name,
+      description: part.description,
+      role: req.teamAccess!.role,
+      baseline: await baselineView(part),
+      studies: studies.map((s) => {
+        const owner = (s as Study & { owner?: User }).owner;
+        return {
+          id: s.id,
+          title: s.title,
+          latestRevisionNumber: s.latestRevisionNumber,
+          forkedFromRevisionId: s.forkedFromRevisionId,
+          updatedAt: s.updatedAt,
+          owner: owner ? { id: owner.id, login: owner.login, name: owner.name } : null,
+        };
+      }),
+    });
+  });
+
+  router.post('/parts/:partId/studies', requireTeamRole('write', teamOfPart), async (req, res) => {
+    const body = createStudyBody.parse(req.body);
+    const part = (await Part.findByPk(idParam(req.params.partId)!))!;
+    const { study, revision } = await createStudy(sequelize, {
+      part,
+      ownerId: currentUser(req).id,
+      title: body.title,
+      params: body.params,
+      message: body.message,
+    });
+    res.status(201).json({ id: study.id, title: study.title, latestRevisionNumber: 1, revisionId: revision.id });
+  });
+
+  /** Pins a revision of one of this part's studies as its baseline; each change is audited with the previous pin. */
+  router.put('/parts/:partId/baseline', requireTeamRole('pinBaseline', teamOfPart), async (req, res) => {
+    const body = pinBaselineBody.parse(req.body);
+    const part = (await Part.findByPk(idParam(req.params.partId)!))!;
+    const revision = await Revision.findByPk(body.revisionId, { include: [{ model: Study, as: 'study', attributes: ['partId'] }] });
+    if (!revision || (revision as Revision & { study: Study }).study.partId !== part.id) {
+      throw badRequest(`Invalid revisionId: revision ${body.revisionId} is not a revision of a study of this part.`, { field: 'revisionId' });
+    }
+    const previous = { revisionId: part.baselineRevisionId, note: part.baselineNote };
+    const user = currentUser(req);
+    await sequelize.transaction(async (transaction) => {
+      await part.update({ baselineRevisionId: revision.id, baselineNote: body.note, baselinePinnedBy: user.id, baselinePinnedAt: new Date() }, { transaction });
+      await recordAudit(
+        {
+          teamId: part.teamId,
+          actorId: user.id,
+          action: 'baseline.pin',
+          subjectType: 'part',
+          subjectId: part.id,
+          details: { revisionId: revision.id, studyId: revision.studyId, number: revision.number, note: body.note, previous },
+        },
+        transaction,
+      );
+    });
+    res.json(await baselineView(part));
+  });
+
+  return router;
+}
