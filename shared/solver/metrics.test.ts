@@ -78,7 +78,8 @@ describe('metrics tracker', () => {
     // Tg(0.85) = 157 °C with these constants, far above the 47–57 °C part: vitrified within the step
     expect(s.vitrificationTimeMin).toBeGreaterThan(0);
     expect(s.vitrificationTimeMin).toBeLessThanOrEqual(10);
-    expect(s.peakOvershootC).toBe(0); // never above the set point: reported as 0
+    expect(s.peakOvershootC).toBe(0); // never above the set point: reported as 0, with no place or time
+    expect(byKey.maxOvershootC).toMatchObject({ pass: true, atTimeMin: null, atZMm: null });
   });
 
   it('reports the adiabatic rise of the reference laminate', () => {

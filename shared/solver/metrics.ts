@@ -252,7 +252,9 @@ export function summarize(s: SummaryInputs): StudySummary {
     },
     {
       key: 'maxOvershootC', label: 'Exotherm overshoot above set point', value: overshootK, limit: L.maxOvershootC,
-      unit: '°C', pass: overshootK <= L.maxOvershootC, atTimeMin: summary.peakOvershootTimeMin, atZMm: summary.peakOvershootZMm,
+      // never above the set point: no place or time to point at
+      unit: '°C', pass: overshootK <= L.maxOvershootC,
+      atTimeMin: overshootK > 0 ? summary.peakOvershootTimeMin : null, atZMm: overshootK > 0 ? summary.peakOvershootZMm : null,
     },
     {
       key: 'maxGradientC', label: 'Through-thickness temperature difference', value: tr.maxGradientK, limit: L.maxGradientC,
