@@ -69,6 +69,11 @@ test('a fork compared with the baseline shows deltas, the flipped limit, a CSV w
   await expect(page).toHaveURL(new RegExp(`/compare\\?a=s${baseline.studyId}r${baseline.number}&b=s${fork.studyId}r${fork.number}$`));
   await expect(page.getByTestId('run-a')).toContainText('baseline');
   await expect(page.getByTestId('run-b')).toContainText(fork.title);
+  // Any two revisions of the part can be picked instead; the pinned baseline is marked in the list.
+  const pickA = page.getByLabel('A (reference)');
+  await expect(pickA).toHaveValue(`s${baseline.studyId}r${baseline.number}`);
+  await expect(pickA.locator('option', { hasText: '(baseline)' })).toHaveCount(1);
+  await expect(page.getByLabel('B (candidate)').locator('option', { hasText: fork.title })).toHaveCount(2);
 
   // The parameter diff names the one edit, in words with units.
   await expect(page.getByTestId('param-diff')).toContainText(/Cycle segment 1 \(ramp\): rate [\d.]+ °C\/min → 5 °C\/min/);

@@ -173,6 +173,43 @@ export function csvMetaOf(rev: RevisionData): Omit<CsvMeta, 'exportedAt'> {
   };
 }
 
+interface PartStudiesDto {
+  partNumber: string;
+  name: string;
+  baseline: { revisionId: number } | null;
+  studies: { id: number; title: string }[];
+}
+
+interface RevisionListItemDto {
+  id: number;
+  number: number;
+  message: string;
+}
+
+export interface RevisionChoice {
+  ref: string;
+  label: string;
+}
+
+/** Every revision of every study of a part, newest first per study, the pinned baseline marked. */
+export function partRevisionChoicesQueryOptions(partId: number | null) {
+  return queryOptions({
+    queryKey: ['parts', 'revision-choices', partId] as const,
+    queryFn: async (): Promise<RevisionChoice[]> => {
+      const part = await api.get<PartStudiesDto>(`/parts/${partId}`);
+      const lists = await Promise.all(part.studies.map((s) => api.get<RevisionListItemDto[]>(`/studies/${s.id}/revisions`)));
+      return part.studies.flatMap((study, k) =>
+        lists[k].map((r) => ({
+          ref: formatRevisionRef({ source: 'library', studyId: study.id, number: r.number }),
+          label: `${study.title} · r${r.number}${r.id === part.baseline?.revisionId ? ' (baseline)' : ''}${r.message ? ` — ${r.message}` : ''}`,
+        })),
+      );
+    },
+    enabled: partId !== null && partId > 0,
+    staleTime: 30_000,
+  });
+}
+
 /** The demo studies a user can compare without signing in. */
 export function demoRevisionChoices(): { ref: string; label: string }[] {
   return demoStudies().map((d, index) => ({ ref: formatRevisionRef({ source: 'demo', index }), label: d.name }));

@@ -9,7 +9,7 @@ import { RunKey } from '../../../components/run-charts/run-history-chart';
 import { useElementWidth } from '../../../components/run-charts/use-element-width';
 import { fileSlug } from '../../../lib/chart-export';
 import { ApiError } from '../../../lib/api-client';
-import { csvMetaOf, demoRevisionChoices, revisionQueryOptions, signInHref, type RevisionData } from '../../../lib/revision-query';
+import { csvMetaOf, demoRevisionChoices, partRevisionChoicesQueryOptions, revisionQueryOptions, signInHref, type RevisionChoice, type RevisionData } from '../../../lib/revision-query';
 import { solvedRevisionQueryOptions } from '../../../lib/solve-query';
 import { useComparePair } from '../hooks/use-compare-pair';
 import { MetricsTable } from '../../../components/comparison/metrics-table';
@@ -83,38 +83,43 @@ function RunHeader({ index, revision, role }: { index: number; revision: Revisio
   );
 }
 
-function Choose({ a, b, onChoose }: { a: string; b: string; onChoose: (a: string, b: string) => void }) {
+function Choose({ a, b, partId, onChoose }: { a: string; b: string; partId: number | null; onChoose: (a: string, b: string) => void }) {
   const [draftA, setDraftA] = useState(a);
   const [draftB, setDraftB] = useState(b);
-  const choices = demoRevisionChoices();
+  const library = useQuery(partRevisionChoicesQueryOptions(partId));
+  const demos = demoRevisionChoices();
+  // Revisions of the part being compared when signed in; the demo studies otherwise. Any reference can be typed.
+  const choices: RevisionChoice[] = library.data ?? (partId === 0 || partId === null ? demos : []);
   function submit(e: FormEvent) {
     e.preventDefault();
     onChoose(draftA.trim(), draftB.trim());
   }
+  const field = (label: string, value: string, set: (v: string) => void) => (
+    <label className="flex min-w-60 flex-1 flex-col">
+      {label}
+      {choices.some((c) => c.ref === value) ? (
+        <select className="rounded border border-rule bg-paper-raised px-1 py-0.5" value={value} onChange={(e) => set(e.target.value)}>
+          {choices.map((c) => (
+            <option key={c.ref} value={c.ref}>
+              {c.label}
+            </option>
+          ))}
+        </select>
+      ) : (
+        <input className="num rounded border border-rule bg-paper-raised px-1 py-0.5" value={value} onChange={(e) => set(e.target.value)} />
+      )}
+    </label>
+  );
   return (
     <form onSubmit={submit} className="flex flex-wrap items-end gap-2 text-xs print:hidden" aria-label="Choose revisions">
-      <datalist id="compare-demo-refs">
-        {choices.map((c) => (
-          <option key={c.ref} value={c.ref}>
-            {c.label}
-          </option>
-        ))}
-      </datalist>
-      <label className="flex flex-col">
-        A (reference)
-        <input className="num rounded border border-rule bg-paper-raised px-1 py-0.5" list="compare-demo-refs" value={draftA} onChange={(e) => setDraftA(e.target.value)} />
-      </label>
-      <label className="flex flex-col">
-        B (candidate)
-        <input className="num rounded border border-rule bg-paper-raised px-1 py-0.5" list="compare-demo-refs" value={draftB} onChange={(e) => setDraftB(e.target.value)} />
-      </label>
+      {field('A (reference)', draftA, setDraftA)}
+      {field('B (candidate)', draftB, setDraftB)}
       <button type="submit" className="rounded border border-rule px-2 py-1 hover:bg-rule/40">
         Compare
       </button>
       <button type="button" className="rounded border border-rule px-2 py-1 hover:bg-rule/40" onClick={() => onChoose(b, a)}>
         Swap A and B
       </button>
-      <span className="text-ink-faint">Revisions are written s&lt;study&gt;r&lt;revision&gt;, e.g. s12r3; demo studies demo0 to demo{choices.length - 1}.</span>
     </form>
   );
 }
@@ -174,7 +179,7 @@ function Comparison({ a, b, onChoose }: { a: string; b: string; onChoose: (a: st
           <RunHeader index={0} revision={revA.data} role="reference" />
           <RunHeader index={1} revision={revB.data} role="candidate" />
         </div>
-        <Choose key={`${a}|${b}`} a={a} b={b} onChoose={onChoose} />
+        <Choose key={`${a}|${b}`} a={a} b={b} partId={revB.data?.part?.id ?? null} onChoose={onChoose} />
         <div className="flex flex-wrap items-center gap-2 print:hidden">
           <ShareLink />
           <Link className="rounded border border-rule bg-paper-raised px-2 py-1 text-xs font-medium hover:bg-rule/40" to={`/report?r=${encodeURIComponent(b)}&against=${encodeURIComponent(a)}`}>
