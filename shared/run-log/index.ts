@@ -10,3 +10,5 @@ export { checkHygiene, usableValues, displayValue, type HygieneReport } from './
 export { checkSpec, holdsOf, type SpecReport, type HoldReport, type SpecCheckOptions } from './spec-check';
 export { replayInput, ReplayInputError, type ReplayOptions } from './replay';
 export { demoRunLogCsv, DEMO_RUN_LOG_FILE_NAME, DEMO_RUN_LOG_EXCURSION } from './demo-run-log';
+export * from './record';
+export { analyseRunLog, type AnalyseInput } from './analyse';

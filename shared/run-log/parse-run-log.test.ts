@@ -118,6 +118,11 @@ describe('parseRunLog: refusing broken files with line, column and why', () => {
     const e = refusal('Time (min),Air (°C),TC1 (°C)\n0,20,20\n1;22;21\n2,24,22\n');
     expect(e.line).toBe(3);
     expect(e.reason).toMatch(/1 fields where the header has 3/);
+    // so few rows that papaparse cannot guess the delimiter: the header decides, the broken row is named
+    const mapping = { columns: [{ column: 0, header: 'Time (min)', role: 'time', unit: 'min' }, { column: 1, header: 'Air (°C)', role: 'air', label: 'Air', unit: '°C' }] };
+    expect(refusal('Time (min),Air (°C)\n0,20\n1;22\n', mapping).message).toBe(
+      'line 3: 1 fields where the header has 2: the fields must be separated by commas throughout (a different delimiter or a broken row)',
+    );
   });
 
   it('refuses time that goes backwards, naming the row and the time column', () => {

@@ -77,7 +77,14 @@ export function inspectRunLog(input: string, options: Pick<ParseOptions, 'byteLe
   const text = stripBom(input);
   if (text.trim() === '') throw new RunLogParseError('the file is empty (only blank lines)', { line: 1 });
 
-  const head = Papa.parse<string[]>(text, { preview: INSPECT_ROWS + 1, delimitersToGuess: DELIMITERS, skipEmptyLines: 'greedy' });
+  let head = Papa.parse<string[]>(text, { preview: INSPECT_ROWS + 1, delimitersToGuess: DELIMITERS, skipEmptyLines: 'greedy' });
+  if (head.errors.some((e) => e.code === 'UndetectableDelimiter')) {
+    // papaparse guesses from field counts that agree row by row; when a row is broken that guess fails, so
+    // take the delimiter that splits the header into the most fields (the broken row is then named by line).
+    const firstLine = text.slice(0, text.search(/\r?\n|$/));
+    const best = DELIMITERS.map((d) => ({ d, fields: Papa.parse<string[]>(firstLine, { delimiter: d }).data[0]?.length ?? 0 })).sort((a, b) => b.fields - a.fields)[0];
+    if (best.fields >= 2) head = Papa.parse<string[]>(text, { preview: INSPECT_ROWS + 1, delimiter: best.d, skipEmptyLines: 'greedy' });
+  }
   const undetectable = head.errors.some((e) => e.code === 'UndetectableDelimiter');
   const delimiter = head.meta.delimiter;
   const rows = head.data;

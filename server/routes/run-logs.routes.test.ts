@@ -1,0 +1,181 @@
+import { createHash } from 'node:crypto';
+import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { call, resetToDemo, signIn, startHarness, type Harness, type SignedIn } from '../test/harness';
+import { demoRunLogCsv, inspectRunLog, type RunLogRecord } from '../../shared/run-log/index';
+import { parseStudy } from '../../shared/schemas/index';
+import { UploadChunk } from '../models/upload-chunk.model';
+
+// Run logs through the real HTTP stack and the real MariaDB: inspect, upload (atomic), read, download,
+// and the lead's review decision with its role checks.
+
+let h: Harness;
+let engineer: SignedIn;
+let lead: SignedIn;
+let viewer: SignedIn;
+let studyId: number;
+let partId: number;
+let demoCsv: string;
+
+beforeAll(async () => {
+  h = await startHarness();
+});
+afterAll(() => h.close());
+
+beforeEach(async () => {
+  await resetToDemo(h.db);
+  engineer = await signIn(h, 'tomas.reed');
+  lead = await signIn(h, 'amara.okafor');
+  viewer = await signIn(h, 'ines.varga');
+  const study = (await h.db.models.Study.findOne({ where: { title: 'Two-dwell cycle for the 24-ply panel' } }))!;
+  studyId = study.id;
+  partId = study.partId;
+  const latest = (await h.db.models.Revision.findOne({ where: { studyId, number: study.latestRevisionNumber } }))!;
+  // the run followed the study's latest cycle, except for the second hold (the demo's excursion)
+  demoCsv = demoRunLogCsv(parseStudy(latest.params), { start: '2026-04-02T07:10:00' });
+});
+
+const runLogRows = () => h.db.models.Upload.count({ where: { kind: 'run-log', studyId } });
+const chunkRows = () => UploadChunk.count();
+
+function upload(who: SignedIn, csv: string | Buffer, mapping: unknown, name = 'job-4471.csv', type = 'text/csv') {
+  const req = who.agent.post(`/api/studies/${studyId}/run-logs`).set('X-CSRF-Token', who.csrf);
+  const withMapping = mapping === undefined ? req : req.field('mapping', typeof mapping === 'string' ? mapping : JSON.stringify(mapping));
+  return withMapping.attach('file', Buffer.isBuffer(csv) ? csv : Buffer.from(csv), { filename: name, contentType: type });
+}
+
+describe('inspecting a run log', () => {
+  it('proposes a mapping and stores nothing', async () => {
+    const res = await engineer.agent
+      .post(`/api/studies/${studyId}/run-logs/inspect`)
+      .set('X-CSRF-Token', engineer.csrf)
+      .attach('file', Buffer.from(demoCsv), { filename: 'job.csv', contentType: 'text/csv' })
+      .expect(200);
+    expect(res.body.proposal.map((c: { role: string }) => c.role)).toEqual(['time', 'air', 'tool', 'part', 'part', 'part', 'pressure', 'vacuum', 'ignore']);
+    expect(res.body.previewRows).toHaveLength(10);
+    expect(await runLogRows()).toBe(0);
+  });
+});
+
+describe('uploading a run log', () => {
+  it('stores the raw file with its checksum, the parsed series, the findings and the replay, in one go', async () => {
+    const mapping = inspectRunLog(demoCsv).mapping;
+    const res = await upload(engineer, demoCsv, mapping).expect(201);
+    const record = res.body.record as RunLogRecord;
+    expect(res.body.uploadedBy.login).toBe('tomas.reed');
+    expect(res.body.checksumSha256).toBe(createHash('sha256').update(demoCsv).digest('hex'));
+    expect(record.spec.findings.map((f) => `${f.rule} ${f.channel}`)).toEqual(['spec.hold-long TC3 lagging tool-side']);
+    expect(record.hygiene.findings).toEqual([]);
+    expect(record.replay).not.toBeNull();
+    expect(record.replay!.atTcs.map((t) => t.position)).toEqual(['bag-side', 'mid-plane', 'tool-side']);
+    // the part has a pinned baseline: its prediction is there to overlay
+    expect(record.replay!.baseline).not.toBeNull();
+    expect(record.replay!.predicted.timeMin.length).toBeGreaterThan(100);
+    // the raw file comes back byte for byte, with the checksum to verify it
+    const file = await viewer.agent.get(`/api/run-logs/${res.body.id}/file`).expect(200);
+    expect(file.text).toBe(demoCsv);
+    expect(file.headers['x-checksum-sha256']).toBe(res.body.checksumSha256);
+    expect(await chunkRows()).toBeGreaterThanOrEqual(2);
+    const audit = await h.db.models.AuditEvent.findOne({ where: { action: 'run-log.upload', subjectId: res.body.id } });
+    expect(audit).not.toBeNull();
+    // listed on the study and in the part's history
+    const list = await call(viewer, 'get', `/api/studies/${studyId}/run-logs`).expect(200);
+    expect(list.body.map((r: { id: number }) => r.id)).toEqual([res.body.id]);
+    expect(list.body[0].findings).toEqual({ violations: 1, warnings: 0 });
+    const history = await call(viewer, 'get', `/api/parts/${partId}/run-logs`).expect(200);
+    expect(history.body.map((r: { id: number }) => r.id)).toEqual([res.body.id]);
+  });
+
+  it('refuses the same file twice for the same study', async () => {
+    const mapping = inspectRunLog(demoCsv).mapping;
+    const first = await upload(engineer, demoCsv, mapping).expect(201);
+    const again = await upload(engineer, demoCsv, mapping).expect(409);
+    expect(again.body).toMatchObject({ runLogId: first.body.id });
+  });
+
+  const broken: [string, string, { line: number | null; column: string | null; reason: RegExp }][] = [
+    ['time that goes backwards', 'Time (min),Air (°C)\n0,20\n2,24\n1,22\n', { line: 4, column: 'Time (min)', reason: /not after the previous row/ }],
+    ['text in a numeric column', 'Time (min),Air (°C),TC1 (°C)\n0,20,20\n1,22,21\n2,24,OPEN\n3,26,24\n', { line: 4, column: 'TC1 (°C)', reason: /"OPEN" is not a number/ }],
+    ['a delimiter it does not read', 'Time (min)|Air (°C)\n0|20\n1|22\n', { line: 1, column: null, reason: /no comma, semicolon or tab/ }],
+    ['a row with another delimiter', 'Time (min),Air (°C)\n0,20\n1;22\n', { line: 3, column: null, reason: /fields where the header has 2/ }],
+    ['an empty file', '', { line: 1, column: null, reason: /the file is empty/ }],
+  ];
+  it.each(broken)('refuses %s with 400 naming line, column and why, and stores nothing', async (_name, csv, where) => {
+    const mapping = csv.includes('TC1')
+      ? inspectRunLog(csv).mapping
+      : { columns: [{ column: 0, header: 'Time (min)', role: 'time', unit: 'min' }, { column: 1, header: 'Air (°C)', role: 'air', label: 'Air', unit: '°C' }] };
+    const res = await upload(engineer, csv, mapping).expect(400);
+    expect(res.body).toMatchObject({ field: 'file', line: where.line, column: where.column });
+    expect(res.body.reason).toMatch(where.reason);
+    expect(res.body.error).toMatch(/^The run log was refused: /);
+    expect(await runLogRows()).toBe(0);
+    expect(await chunkRows()).toBe(0);
+  });
+
+  it('refuses a file over 50 MB with 413 and stores nothing', async () => {
+    const big = Buffer.alloc(50 * 1024 * 1024 + 1, 'a');
+    const res = await upload(engineer, big, inspectRunLog(demoCsv).mapping).expect(413);
+    expect(res.body.error).toMatch(/too large/i);
+    expect(await runLogRows()).toBe(0);
+  });
+
+  it('refuses a file that is not a text export', async () => {
+    const res = await upload(engineer, Buffer.from([0x89, 0x50, 0x4e, 0x47]), inspectRunLog(demoCsv).mapping, 'trace.png', 'image/png').expect(400);
+    expect(res.body.field).toBe('file');
+    expect(res.body.error).toContain('allowed a CSV, TSV or text export');
+  });
+
+  it('refuses an upload without a confirmed mapping, or with a mapping that breaks a rule', async () => {
+    const none = await upload(engineer, demoCsv, undefined).expect(400);
+    expect(none.body.field).toBe('mapping');
+    const twoAirs = inspectRunLog(demoCsv).mapping;
+    twoAirs.columns[2] = { ...twoAirs.columns[2], role: 'air' } as (typeof twoAirs.columns)[number];
+    const bad = await upload(engineer, demoCsv, twoAirs).expect(400);
+    expect(bad.body.error).toContain('2 columns mapped as air: allowed at most one');
+    expect(await runLogRows()).toBe(0);
+  });
+
+  it('lets only engineers and leads upload; outsiders do not see the study', async () => {
+    const mapping = inspectRunLog(demoCsv).mapping;
+    await upload(viewer, demoCsv, mapping).expect(403);
+    const outsider = await signIn(h, { login: 'lou.stranger', name: 'Lou Stranger', email: 'lou@elsewhere.example' });
+    await upload(outsider, demoCsv, mapping).expect(404);
+    await call(outsider, 'get', `/api/studies/${studyId}/run-logs`).expect(404);
+    expect(await runLogRows()).toBe(0);
+  });
+});
+
+describe('review decisions', () => {
+  let runLogId: number;
+  beforeEach(async () => {
+    runLogId = (await upload(engineer, demoCsv, inspectRunLog(demoCsv).mapping).expect(201)).body.id;
+  });
+
+  const decision = { decision: 'use-as-is', rationale: 'Hold 2 ran 50 min long at 180 °C; replay shows full cure and Tg within the baseline band. Coupons to confirm.' };
+
+  it('records the lead\'s decision once, with who and when, in the part history and the audit trail', async () => {
+    const res = await call(lead, 'post', `/api/run-logs/${runLogId}/review`, decision).expect(201);
+    expect(res.body).toMatchObject({ decision: 'use-as-is' });
+    const detail = await call(viewer, 'get', `/api/run-logs/${runLogId}`).expect(200);
+    expect(detail.body.review).toMatchObject({ decision: 'use-as-is', rationale: decision.rationale, decidedBy: { login: 'amara.okafor' } });
+    const history = await call(viewer, 'get', `/api/parts/${partId}/run-logs`).expect(200);
+    expect(history.body[0].review.decision).toBe('use-as-is');
+    expect(await h.db.models.AuditEvent.count({ where: { action: 'review.decide' } })).toBe(1);
+  });
+
+  it('never changes a decision once made', async () => {
+    await call(lead, 'post', `/api/run-logs/${runLogId}/review`, decision).expect(201);
+    const again = await call(lead, 'post', `/api/run-logs/${runLogId}/review`, { ...decision, decision: 'scrap' }).expect(409);
+    expect(again.body.error).toContain('decisions cannot be changed');
+    expect((await call(viewer, 'get', `/api/run-logs/${runLogId}`)).body.review.decision).toBe('use-as-is');
+  });
+
+  it('refuses engineers and viewers with 403, and a decision without a real rationale with 400', async () => {
+    await call(engineer, 'post', `/api/run-logs/${runLogId}/review`, decision).expect(403);
+    await call(viewer, 'post', `/api/run-logs/${runLogId}/review`, decision).expect(403);
+    const short = await call(lead, 'post', `/api/run-logs/${runLogId}/review`, { decision: 'scrap', rationale: 'bad' }).expect(400);
+    expect(short.body.field).toBe('rationale');
+    const unknown = await call(lead, 'post', `/api/run-logs/${runLogId}/review`, { ...decision, decision: 'ship-it' }).expect(400);
+    expect(unknown.body.field).toBe('decision');
+    expect(await h.db.models.Review.count()).toBe(0);
+  });
+});
