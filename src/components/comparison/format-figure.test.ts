@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatChange, formatFigure } from './format-figure';
+import { formatChange, formatFigure, formatNumber } from './format-figure';
 
 describe('figure formatting', () => {
   it('shows figures with the decimals of their unit', () => {
@@ -8,6 +8,7 @@ describe('figure formatting', () => {
     expect(formatFigure(1.234, '°')).toBe('1.23°');
     expect(formatFigure(-0.5, 'mm')).toBe('−0.500 mm');
     expect(formatFigure(null, 'min')).toBe('not reached');
+    expect(formatNumber(-2.219, '°C/min')).toBe('−2.22');
   });
 
   it('signs changes and calls a change too small to show ±0', () => {

@@ -16,6 +16,11 @@ export function formatFigure(v: number | null, unit: string): string {
   return withUnit(v.toFixed(decimals(unit)).replace(/^-/, '−'), unit);
 }
 
+/** The number alone, with the decimals of its unit (for a column whose header or neighbour names the unit). */
+export function formatNumber(v: number, unit: string): string {
+  return v.toFixed(decimals(unit)).replace(/^-/, '−');
+}
+
 /** "+3.1 °C", "−0.012", "±0 min" */
 export function formatChange(delta: number | null, unit: string): string {
   if (delta === null) return '—';

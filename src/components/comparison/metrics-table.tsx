@@ -1,5 +1,5 @@
 import type { MetricComparison } from '../../../shared/compare/metric-deltas';
-import { formatChange, formatFigure } from './format-figure';
+import { formatChange, formatFigure, formatNumber } from './format-figure';
 
 function Verdict({ pass }: { pass: boolean }) {
   return pass ? <span className="text-verdigris">pass</span> : <span className="font-semibold text-fault">FAIL</span>;
@@ -40,7 +40,7 @@ export function MetricsTable({ comparison, labelA, labelB }: { comparison: Metri
         <thead className="border-b border-rule">
           <tr>
             <th className={th} scope="col">Process limit</th>
-            <th className={`${th} text-right`} scope="col">Limit</th>
+            <th className={`${th} text-right`} scope="col">Limit (unit)</th>
             <th className={`${th} text-right`} scope="col">A</th>
             <th className={`${th} text-right`} scope="col">B</th>
             <th className={th} scope="col">Verdict change</th>
@@ -54,8 +54,8 @@ export function MetricsTable({ comparison, labelA, labelB }: { comparison: Metri
                 {l.limitChanged && l.a ? `${formatFigure(l.a.limit, l.unit)} → ` : ''}
                 {formatFigure((l.b ?? l.a)!.limit, l.unit)}
               </td>
-              <td className={td}>{l.a ? <>{formatFigure(l.a.value, l.unit)} <Verdict pass={l.a.pass} /></> : '—'}</td>
-              <td className={td}>{l.b ? <>{formatFigure(l.b.value, l.unit)} <Verdict pass={l.b.pass} /></> : '—'}</td>
+              <td className={td}>{l.a ? <>{formatNumber(l.a.value, l.unit)} <Verdict pass={l.a.pass} /></> : '—'}</td>
+              <td className={td}>{l.b ? <>{formatNumber(l.b.value, l.unit)} <Verdict pass={l.b.pass} /></> : '—'}</td>
               <td className="px-2 py-1">
                 {l.flip === 'now-fails' && <span className="font-semibold text-fault">✕ now fails</span>}
                 {l.flip === 'now-passes' && <span className="font-semibold text-verdigris">✓ now passes</span>}
