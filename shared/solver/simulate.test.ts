@@ -4,7 +4,7 @@ import { parseStudy, StudyInputError, type StudyParams, type StudyParamsInput } 
 import { cToK, minToS } from '../units';
 import { expectClose } from './test-support/expect-close';
 import { aluminiumPlate, demoCarbonFibre, demoResin180, invarPlate, leeLoosSpringerResin, quasiIsotropic, referenceStudy } from './demo-cards';
-import { simulate, type SimulationResult } from './simulate';
+import { PREVIEW_STEP_LIMITS, simulate, type SimulationResult } from './simulate';
 
 /** Linear interpolation of a history at time t (histories land exactly on segment ends). */
 function at(result: SimulationResult, series: Float64Array, tS: number): number {
@@ -251,6 +251,18 @@ describe('simulate: step-size convergence', () => {
       expect(order).toBeGreaterThan(1.4);
       expect(order).toBeLessThan(2.6);
     }
+  });
+});
+
+describe('simulate: preview limits', () => {
+  it('take about half the steps and stay close to the default solution', () => {
+    const p = referenceStudy();
+    const full = simulate(p);
+    const quick = simulate(p, { stepLimits: PREVIEW_STEP_LIMITS });
+    expect(quick.steps).toBeLessThan(0.65 * full.steps);
+    expect(Math.abs(quick.summary.finalCureMin - full.summary.finalCureMin)).toBeLessThan(1e-3);
+    expect(Math.abs(quick.summary.peakPartC - full.summary.peakPartC)).toBeLessThan(0.5);
+    expect(Math.abs(quick.summary.cycleMin - full.summary.cycleMin)).toBeLessThan(2.5);
   });
 });
 

@@ -8,7 +8,7 @@ import { cureRate } from './kinetics';
 import { adiabaticTemperatureRiseK, advanceThermochemical, createThermochemical, maxCureRate } from './thermochemical';
 
 export type { LimitCheck, SimulateOptions, SimulationHistory, SimulationResult, StepLimits, StudySummary } from './simulation-result';
-export { DEFAULT_STEP_LIMITS } from './simulation-result';
+export { DEFAULT_STEP_LIMITS, PREVIEW_STEP_LIMITS } from './simulation-result';
 
 // The adaptive time loop (physics.md §1): cycle → heat and cure through the thickness → ply stresses and
 // laminate equilibrium, step by step, with histories recorded and metrics tracked on the way. Everything is

@@ -54,3 +54,10 @@ export interface StepLimits {
 }
 
 export const DEFAULT_STEP_LIMITS: StepLimits = { maxAirChangeK: 1, maxCureChange: 0.005, maxPartChangeK: 2, maxStepS: 60 };
+
+/**
+ * Coarser limits for a quick look while the user drags: about half the steps. The loop is second order in the
+ * step, so results move by roughly 4× the (already small) step error of the defaults; re-solve with the
+ * defaults when the drag ends.
+ */
+export const PREVIEW_STEP_LIMITS: StepLimits = { maxAirChangeK: 2, maxCureChange: 0.01, maxPartChangeK: 4, maxStepS: 120 };
