@@ -1,4 +1,4 @@
-import { useEffect, useLayoutEffect, useMemo, useRef, useState } from 'react';
+import { memo, useEffect, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
 import { ApiError } from '../../../lib/api-client';
@@ -8,7 +8,7 @@ import { studyQueryOptions, useStudy, type WorkspaceStudy } from '../api/get-stu
 import { cycleEndMin, cycleSpans } from '../model/cycle-geometry';
 import { useLiveSolve } from '../hooks/use-live-solve';
 import { useUndoKeys } from '../hooks/use-undo-keys';
-import { measurePainted } from '../perf/input-latency';
+import { measurePainted, measureRendered } from '../perf/input-latency';
 import { resultsStore, useResults } from '../stores/results-store';
 import { studyEditorStore, useStudyEditor } from '../stores/study-editor-store';
 import { AssumptionsNote } from './assumptions-note';
@@ -55,11 +55,12 @@ function useWidth<T extends HTMLElement>(fallback: number) {
 
 /** One time axis for the editor and every lane: the longer of the drawn cycle and the solved one, held while dragging. */
 function useWorkspaceTimeAxis(width: number) {
-  const cycle = useStudyEditor((s) => s.params?.cycle);
+  const nominalEnd = useStudyEditor((s) =>
+    s.params?.cycle.kind === 'segments' ? cycleEndMin(cycleSpans(s.params.cycle.startC, s.params.cycle.segments)) : 0,
+  );
   const resultEnd = useResults((s) => (s.result ? s.result.history.timeS[s.result.history.timeS.length - 1] / 60 : 0));
   const dragging = useResults((s) => s.dragging);
   const held = useRef(0);
-  const nominalEnd = cycle?.kind === 'segments' ? cycleEndMin(cycleSpans(cycle.startC, cycle.segments)) : 0;
   let end = niceCycleEnd(Math.max(nominalEnd, resultEnd, 1));
   if (dragging) end = Math.max(end, held.current);
   held.current = end;
@@ -71,44 +72,70 @@ function PaintProbe() {
   const tag = useResults((s) => s.resultTag);
   const result = useResults((s) => s.result);
   useLayoutEffect(() => {
-    if (result) measurePainted(tag);
+    if (!result) return;
+    measureRendered();
+    measurePainted(tag);
   }, [result, tag]);
   return null;
 }
 
+// Memoised so that a re-render of the column above them (a new time axis end) reaches them only through context.
+const Editor = memo(function Editor() {
+  return <CycleEditor />;
+});
+const Segments = memo(function Segments() {
+  return (
+    <details open className="border-t border-rule">
+      <summary className="cursor-pointer px-3 py-1 text-[11px] font-semibold uppercase tracking-[0.08em] text-ink-soft">
+        Segments, exact entry
+      </summary>
+      <SegmentTable />
+    </details>
+  );
+});
+const Lanes = memo(HistoryLanes);
+
+/** The middle column: the cycle editor and the result lanes on one time axis. */
+function TimeColumn() {
+  const [ref, width] = useWidth<HTMLDivElement>(900);
+  const axis = useWorkspaceTimeAxis(width);
+  return (
+    <div ref={ref} className="border-t border-rule">
+      <TimeAxisProvider axis={axis}>
+        <Editor />
+        <Segments />
+        <Lanes />
+      </TimeAxisProvider>
+    </div>
+  );
+}
+
+const SetupColumn = memo(function SetupColumn() {
+  return (
+    <aside aria-label="Study setup" className="border-r border-rule bg-paper-raised/60 lg:max-h-[calc(100vh-7rem)] lg:overflow-y-auto">
+      <MaterialPanel />
+      <LayupPanel />
+      <ToolPanel />
+      <HeatTransferPanel />
+      <GeometryPanel />
+      <LimitsSetupPanel />
+    </aside>
+  );
+});
+
 function Workspace({ study, onReload }: { study: WorkspaceStudy; onReload: () => void }) {
   useLiveSolve();
   useUndoKeys();
-  const [centreRef, width] = useWidth<HTMLDivElement>(900);
-  const axis = useWorkspaceTimeAxis(width);
   const canWrite = study.role === 'engineer' || study.role === 'lead';
 
   return (
     <div className="flex min-h-full flex-col" data-testid="workspace">
       <WorkspaceToolbar offline={study.offline} canWrite={canWrite} onReload={onReload} />
       <div className="grid flex-1 grid-cols-1 lg:grid-cols-[20rem_minmax(0,1fr)] 2xl:grid-cols-[20rem_minmax(0,1fr)_22rem]">
-        <aside aria-label="Study setup" className="border-r border-rule bg-paper-raised/60 lg:max-h-[calc(100vh-7rem)] lg:overflow-y-auto">
-          <MaterialPanel />
-          <LayupPanel />
-          <ToolPanel />
-          <HeatTransferPanel />
-          <GeometryPanel />
-          <LimitsSetupPanel />
-        </aside>
+        <SetupColumn />
         <section aria-label="Cure cycle and results over time" className="min-w-0">
           <KeyFigures />
-          <div ref={centreRef} className="border-t border-rule">
-            <TimeAxisProvider axis={axis}>
-              <CycleEditor />
-              <details open className="border-t border-rule">
-                <summary className="cursor-pointer px-3 py-1 text-[11px] font-semibold uppercase tracking-[0.08em] text-ink-soft">
-                  Segments, exact entry
-                </summary>
-                <SegmentTable />
-              </details>
-              <HistoryLanes />
-            </TimeAxisProvider>
-          </div>
+          <TimeColumn />
           <PaintProbe />
           <SolveCounter />
         </section>

@@ -6,6 +6,24 @@
  */
 
 export const INPUT_TO_PAINT = 'dwellform:input-to-paint';
+/** Round trip of one solve through the worker, from the page's side. */
+export const SOLVE_MEASURE = 'dwellform:solve';
+/** From a result's arrival to the charts' commit (React render of every chart). */
+export const RENDER_MEASURE = 'dwellform:render';
+
+let resultArrivedAt: number | null = null;
+
+/** Call as a result is handed to the store. */
+export function markResultArrived(): void {
+  if (hasPerformance()) resultArrivedAt = performance.now();
+}
+
+/** Call in the layout effect that follows the charts' commit. */
+export function measureRendered(): void {
+  if (!hasPerformance() || resultArrivedAt === null) return;
+  performance.measure(RENDER_MEASURE, { start: resultArrivedAt, end: performance.now() });
+  resultArrivedAt = null;
+}
 
 type OpenInput = { seq: number; t: number };
 

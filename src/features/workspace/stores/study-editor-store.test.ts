@@ -118,7 +118,8 @@ describe('study editor store', () => {
 
   it('an edit that changes nothing leaves no undo step', () => {
     const store = loaded();
-    store.getState().edit('same', (d) => void (d.geometry.cornerAngleDeg = d.geometry.cornerAngleDeg));
+    const angle = store.getState().params!.geometry.cornerAngleDeg;
+    store.getState().edit('same', (d) => void (d.geometry.cornerAngleDeg = angle));
     expect(store.getState().past).toHaveLength(0);
   });
 });
