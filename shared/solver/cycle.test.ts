@@ -3,7 +3,7 @@ import type { Cycle } from '../schemas/study';
 import { parseStudy } from '../schemas/study';
 import { kToC } from '../units';
 import { referenceStudy } from './demo-cards';
-import { advanceCycle, airAt, airRateKPerS, createCycleState, nextEventS, plannedSchedule, prepareCycle, scheduledDurationS, type CycleProgram, type CycleState } from './cycle';
+import { MAX_LAGGING_WAIT_S, advanceCycle, airAt, airRateKPerS, createCycleState, nextEventS, plannedSchedule, prepareCycle, scheduledDurationS, type CycleProgram, type CycleState } from './cycle';
 
 function cycleOf(cycle: unknown): Cycle {
   return parseStudy({ ...referenceStudy(), cycle }).cycle;
@@ -125,6 +125,26 @@ describe('cycle state machine', () => {
     advanceCycle(program, state, 122 * 60, 360, 377.5); // hottest 104.35 °C: in band
     expect(state.clockStartS).toBe(122 * 60);
     expect(nextEventS(program, state)).toBe(132 * 60);
+  });
+
+  it('starts a lagging hold anyway after the 24 h wait cap, and says so', () => {
+    const cycle = cycleOf({
+      kind: 'segments',
+      startC: 20,
+      segments: [
+        { kind: 'ramp', rateCPerMin: 2, targetC: 120, pressureBar: 7 },
+        { kind: 'hold', holdMin: 10, pressureBar: 7, start: 'lagging-part', bandC: 1 },
+        { kind: 'cool', rateCPerMin: 2, targetC: 60, pressureBar: 7 },
+      ],
+    });
+    const program = prepareCycle(cycle);
+    const state = createCycleState(program);
+    advanceCycle(program, state, 3000, 300, 300);
+    expect(nextEventS(program, state)).toBe(3000 + MAX_LAGGING_WAIT_S);
+    advanceCycle(program, state, 3000 + MAX_LAGGING_WAIT_S, 300, 300); // part still 90 K short
+    expect(state.clockStartS).toBe(3000 + MAX_LAGGING_WAIT_S);
+    expect(state.waitTimeouts).toEqual([1]);
+    expect(nextEventS(program, state)).toBe(3000 + MAX_LAGGING_WAIT_S + 600);
   });
 
   it('interpolates a measured record linearly, tool column and pressure included', () => {
