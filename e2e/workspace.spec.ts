@@ -81,3 +81,56 @@ test('an invalid ramp rate is marked with its reason and never reaches the solve
   await rate.fill('1.5');
   await expect(solves).not.toHaveText(countBefore!);
 });
+
+test('saving writes a new revision; a save on a stale base says so and offers the newer revision', async ({ page }) => {
+  await signInAs(page, 'amara.okafor');
+  const sourceId = await demoStudyId(page);
+  // Work on a fork so the seeded study other specs read stays as seeded.
+  const token = async () => ((await (await page.request.get('/api/auth/csrf')).json()) as { csrfToken: string }).csrfToken;
+  const source = (await (await page.request.get(`/api/studies/${sourceId}`)).json()) as { latestRevisionNumber: number };
+  const forkResponse = await page.request.post(`/api/studies/${sourceId}/revisions/${source.latestRevisionNumber}/fork`, {
+    headers: { 'X-CSRF-Token': await token() },
+    data: { title: `Save check ${Date.now()}` },
+  });
+  expect(forkResponse.status()).toBe(201);
+  const fork = (await forkResponse.json()) as { id: number; title: string };
+
+  await page.goto(`/studies/${fork.id}`);
+  await expect(page.getByRole('heading', { level: 1, name: fork.title })).toBeVisible();
+  await expect(page.getByTestId('final-cure-figure')).toHaveText(/^\d\.\d{3}$/);
+  await expect(page.getByTestId('unsaved-marker')).toHaveText('saved');
+
+  // Lengthen the first dwell by 5 min from the keyboard, then save with a message.
+  await page.getByRole('slider', { name: 'Dwell 1 end' }).focus();
+  for (let i = 0; i < 5; i++) await page.keyboard.press('ArrowRight');
+  await expect(page.getByTestId('unsaved-marker')).toHaveText(/unsaved/);
+  await page.getByRole('button', { name: 'Save revision…' }).click();
+  await page.getByLabel('What changed and why').fill('First dwell 5 min longer');
+  await page.getByRole('button', { name: 'Save', exact: true }).click();
+  await expect(page.getByTestId('unsaved-marker')).toHaveText('saved');
+  await expect(page.getByText('revision 2', { exact: true })).toBeVisible();
+  const saved = (await (await page.request.get(`/api/studies/${fork.id}`)).json()) as {
+    latestRevisionNumber: number;
+    latest: { message: string; params: { cycle: { segments: { holdMin?: number }[] } } };
+  };
+  expect(saved.latestRevisionNumber).toBe(2);
+  expect(saved.latest.message).toBe('First dwell 5 min longer');
+
+  // Someone else saves revision 3 meanwhile.
+  const other = await page.request.post(`/api/studies/${fork.id}/revisions`, {
+    headers: { 'X-CSRF-Token': await token() },
+    data: { baseRevision: 2, message: 'Saved elsewhere', params: saved.latest.params },
+  });
+  expect(other.status()).toBe(201);
+
+  await page.getByRole('slider', { name: 'Dwell 1 end' }).focus();
+  await page.keyboard.press('ArrowRight');
+  await page.getByRole('button', { name: 'Save revision…' }).click();
+  await page.getByLabel('What changed and why').fill('One more minute');
+  await page.getByRole('button', { name: 'Save', exact: true }).click();
+  const conflict = page.getByRole('alert').filter({ hasText: 'newer revision' });
+  await expect(conflict).toContainText('A newer revision (3) was saved while you were editing');
+  await conflict.getByRole('button', { name: 'Open the newer revision (drops your changes)' }).click();
+  await expect(page.getByText('revision 3', { exact: true })).toBeVisible();
+  await expect(page.getByTestId('unsaved-marker')).toHaveText('saved');
+});

@@ -53,7 +53,15 @@ const initial: ResultsState = {
 export function createResultsStore() {
   return createStore<ResultsState & ResultsActions>()((set) => ({
     ...initial,
-    setResult: (result, tag, solveMs) => set({ result, resultTag: tag, solveMs, error: null }),
+    // The first result of a study opens the profiles at the exotherm peak, the moment most worth a look.
+    setResult: (result, tag, solveMs) =>
+      set((s) => ({
+        result,
+        resultTag: tag,
+        solveMs,
+        error: null,
+        ...(s.result === null && s.scrubMin === 0 ? { scrubMin: Math.max(0, result.summary.peakOvershootTimeMin) } : {}),
+      })),
     setBusy: (busy) => set({ busy }),
     setError: (error) => set({ error }),
     countSolve: () => set((s) => ({ solveCount: s.solveCount + 1 })),
