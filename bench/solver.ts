@@ -33,6 +33,15 @@ function timeIt(params: StudyParams, options: SimulateOptions = {}, minRuns = 15
   return { ms: median(times), steps };
 }
 
+/** Process CPU time per simulate() call in ms over `runs` calls (user + system; waiting for a core not counted). */
+function cpuMsPerRun(params: StudyParams, runs: number): number {
+  simulate(params);
+  const start = process.cpuUsage();
+  for (let i = 0; i < runs; i++) simulate(params);
+  const used = process.cpuUsage(start);
+  return (used.user + used.system) / 1000 / runs;
+}
+
 /** Least-squares slope of log(y) against log(x). */
 export function growthExponent(xs: number[], ys: number[]): number {
   const lx = xs.map(Math.log);
@@ -60,8 +69,10 @@ function withPronyTerms(base: StudyParams, terms: number): StudyParams {
 export async function runSolverBench(): Promise<Figures> {
   const ref = referenceStudy();
   const main = timeIt(ref, {}, 40, 2000);
+  const cpu = cpuMsPerRun(ref, 40);
   const figures: Figures = {
     'reference study: median ms per simulation': round(main.ms, 3),
+    'reference study: CPU ms per simulation (less sensitive to a busy machine)': round(cpu, 3),
     'reference study: steps': main.steps,
     'reference study: simulations per second': round(1000 / main.ms, 1),
     'reference study: µs per step': round((1000 * main.ms) / main.steps, 2),
