@@ -104,6 +104,19 @@ describe('study schema', () => {
     expect(issueAt(up, 'cycle.segments.4.targetC').message).toContain('allowed < 180 °C');
   });
 
+  it('caps the length of a cycle at 14 days', () => {
+    const issues = issuesOf((s) => {
+      s.cycle.segments[3].holdMin = 10_000;
+      s.cycle.segments[1].holdMin = 10_100;
+    });
+    // 50 + 10100 + 30 + 10000 + 40 min (closed form of the schedule)
+    expect(issueAt(issues, 'cycle.segments').message).toBe('the schedule lasts 20220 min: allowed ≤ 20160 min (14 days)');
+    const s = structuredClone(referenceStudy()) as any;
+    s.cycle.segments[1].holdMin = 10_000;
+    s.cycle.segments[3].holdMin = 10_000; // 20120 min: accepted
+    expect(validateStudy(s).ok).toBe(true);
+  });
+
   it('caps the laminate mesh with a hint', () => {
     const issues = issuesOf((s) => {
       s.layup.plies = Array.from({ length: 120 }, () => ({ angleDeg: 0, thicknessMm: 0.2 }));

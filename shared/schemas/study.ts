@@ -9,6 +9,8 @@ import { describeRange, formatValue, inRange, label, quantity, type Range } from
 export const ROOM_TEMPERATURE_C = 20;
 /** Upper bound on laminate mesh nodes (plies × nodes per ply); keeps one solve interactive. */
 export const MAX_LAMINATE_NODES = 400;
+/** Longest cycle a study may schedule (14 days): keeps one solve bounded; real cures are hours to a day or two. */
+export const MAX_CYCLE_MIN = 14 * 24 * 60;
 /** Prony weights must sum to 1 within this. */
 export const WEIGHT_SUM_TOLERANCE = 1e-6;
 /** LLS: the low-cure branch switches at α = 0.3 (Lee, Loos & Springer, J. Compos. Mater. 16, 1982). */
@@ -404,6 +406,20 @@ function checkSegments(startC: number, segments: Segment[], ctx: z.RefinementCtx
       });
     }
   });
+  const totalMin = segments.reduce((sum, seg, i) => {
+    if (seg.kind === 'hold') return sum + seg.holdMin;
+    if (!(seg.rateCPerMin > 0)) return sum; // refused on its own field
+    const from = i === 0 ? startC : targetBefore(startC, segments, i);
+    return sum + Math.abs(seg.targetC - from) / seg.rateCPerMin;
+  }, 0);
+  if (totalMin > MAX_CYCLE_MIN) {
+    ctx.addIssue({
+      code: 'custom',
+      path: ['cycle', 'segments'],
+      input: totalMin,
+      message: `the schedule lasts ${formatValue(totalMin)} min: allowed ≤ ${MAX_CYCLE_MIN} min (14 days)`,
+    });
+  }
   const last = segments[segments.length - 1];
   if (last && last.kind !== 'cool') {
     ctx.addIssue({
@@ -415,7 +431,25 @@ function checkSegments(startC: number, segments: Segment[], ctx: z.RefinementCtx
   }
 }
 
+/** Air set point at the start of segment i (the target of the last ramp or cool before it). */
+function targetBefore(startC: number, segments: Segment[], i: number): number {
+  for (let j = i - 1; j >= 0; j--) {
+    const seg = segments[j];
+    if (seg.kind !== 'hold') return seg.targetC;
+  }
+  return startC;
+}
+
 function checkRecord(points: { timeMin: number }[], ctx: z.RefinementCtx) {
+  const spanMin = points[points.length - 1].timeMin - points[0].timeMin;
+  if (spanMin > MAX_CYCLE_MIN) {
+    ctx.addIssue({
+      code: 'custom',
+      path: ['cycle', 'points', points.length - 1, 'timeMin'],
+      input: spanMin,
+      message: `the record spans ${formatValue(spanMin)} min: allowed ≤ ${MAX_CYCLE_MIN} min (14 days)`,
+    });
+  }
   for (let i = 1; i < points.length; i++) {
     if (!(points[i].timeMin > points[i - 1].timeMin)) {
       ctx.addIssue({
