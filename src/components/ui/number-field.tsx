@@ -2,7 +2,7 @@ import { useEffect, useId, useRef, useState, type KeyboardEvent } from 'react';
 
 export type NumberFieldProps = {
   label: string;
-  /** shown after the number, always (e.g. '°C/min'); empty for dimensionless values */
+  /** shown after the number, always (e.g. '°C/min'); empty for dimensionless values, shown as "–" */
   unit: string;
   value: number;
   onCommit: (value: number) => void;
@@ -58,7 +58,8 @@ export function NumberField({ label, unit, value, onCommit, issue, step = 1, dig
   }
 
   function onKeyDown(e: KeyboardEvent<HTMLInputElement>) {
-    if (e.key !== 'ArrowUp' && e.key !== 'ArrowDown') return;
+    // Alt/Ctrl+arrows belong to the surroundings (e.g. moving a table row), not to the value.
+    if ((e.key !== 'ArrowUp' && e.key !== 'ArrowDown') || e.altKey || e.ctrlKey || e.metaKey) return;
     e.preventDefault();
     const base = parse(text) ?? value;
     const delta = (e.key === 'ArrowUp' ? 1 : -1) * step * (e.shiftKey ? 10 : 1);
@@ -95,7 +96,13 @@ export function NumberField({ label, unit, value, onCommit, issue, step = 1, dig
             if (localIssue === null) setText(format(value, digits));
           }}
         />
-        {unit && <span className="num ml-1 shrink-0 text-xs text-ink-faint">{unit}</span>}
+        {unit ? (
+          <span className="num ml-1 shrink-0 text-xs text-ink-faint">{unit}</span>
+        ) : (
+          <span className="num ml-1 shrink-0 text-xs text-ink-faint" title="dimensionless">
+            –
+          </span>
+        )}
       </div>
       {shown && (
         <p id={`${id}-issue`} role="alert" className="text-xs leading-snug text-fault">

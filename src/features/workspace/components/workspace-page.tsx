@@ -123,9 +123,22 @@ const SetupColumn = memo(function SetupColumn() {
   );
 });
 
+/** The browser asks before leaving a study with unsaved changes. */
+function useLeaveGuard() {
+  useEffect(() => {
+    const onBeforeUnload = (e: BeforeUnloadEvent) => {
+      const s = studyEditorStore.getState();
+      if (s.headId !== s.savedId) e.preventDefault();
+    };
+    window.addEventListener('beforeunload', onBeforeUnload);
+    return () => window.removeEventListener('beforeunload', onBeforeUnload);
+  }, []);
+}
+
 function Workspace({ study, onReload }: { study: WorkspaceStudy; onReload: () => void }) {
   useLiveSolve();
   useUndoKeys();
+  useLeaveGuard();
   const canWrite = study.role === 'engineer' || study.role === 'lead';
 
   return (
