@@ -23,6 +23,10 @@ export const ALPHA_MAX = 1 - 1e-9;
 /** Default tolerance on α per call of advanceCure (absolute near α = 1, relative ×1e-3 near α = 0). */
 export const DEFAULT_CURE_TOLERANCE = 1e-9;
 
+// A module-local copy: an imported binding is re-read through the module record on every use in some
+// runtimes (CommonJS interop wraps it in a getter), and the hot path reads it in every rate evaluation.
+const SWITCH_ALPHA = LLS_SWITCH_ALPHA;
+
 const NTH_ORDER = 0;
 const KAMAL_SOUROUR = 1;
 const LEE_LOOS_SPRINGER = 2;
@@ -108,7 +112,7 @@ export function prepareKinetics(card: KineticsInput, options: { tolerance?: numb
       requireFinite(kin.e2JPerMol, 'kinetics.e2JPerMol', '≥ 0 J/mol', kin.e2JPerMol >= 0);
       requireFinite(kin.e3JPerMol, 'kinetics.e3JPerMol', '≥ 0 J/mol', kin.e3JPerMol >= 0);
       // B − α must stay positive below the switch, or the low-cure branch stalls before reaching it.
-      requireFinite(kin.b, 'kinetics.b', `> ${LLS_SWITCH_ALPHA}`, kin.b > LLS_SWITCH_ALPHA);
+      requireFinite(kin.b, 'kinetics.b', `> ${SWITCH_ALPHA}`, kin.b > SWITCH_ALPHA);
       form = kin.form;
       formCode = LEE_LOOS_SPRINGER;
       base.a1 = perMinToPerS(kin.a1PerMin);
@@ -166,18 +170,7 @@ function power(x: number, p: number): number {
 // α_C0 + α_CT·T; `upper` selects the Lee–Loos–Springer branch. Never negative (a negative K1 + K2α at low
 // temperature means no reaction, not un-curing), never NaN.
 function rateAt(k: PreparedKinetics, K1: number, K2: number, K3: number, centre: number, alpha: number, upper: boolean): number {
-  const free = alpha < 1 ? 1 - alpha : 0;
-  let r: number;
-  if (k.formCode === NTH_ORDER) {
-    r = K1 * power(free, k.n);
-  } else if (k.formCode === KAMAL_SOUROUR) {
-    const seeded = alpha > ALPHA_SEED ? alpha : ALPHA_SEED;
-    r = (K1 + K2 * power(seeded, k.m)) * power(free, k.n);
-  } else if (upper) {
-    r = K3 * free;
-  } else {
-    r = (K1 + K2 * alpha) * free * (k.b - alpha);
-  }
+  let r = chemicalRate(k, K1, K2, K3, alpha, upper);
   if (!(r > 0)) return 0;
   if (k.hasDiffusion) {
     // Below −40 the exponential is under 1e-17 of 1: f_d is 1 to double precision, skip it.
@@ -185,6 +178,18 @@ function rateAt(k: PreparedKinetics, K1: number, K2: number, K3: number, centre:
     if (x > -40) r /= 1 + Math.exp(x);
   }
   return r;
+}
+
+/** The rate before the diffusion factor (may be ≤ 0 or NaN: rateAt turns that into 0). */
+function chemicalRate(k: PreparedKinetics, K1: number, K2: number, K3: number, alpha: number, upper: boolean): number {
+  const free = alpha < 1 ? 1 - alpha : 0;
+  if (k.formCode === NTH_ORDER) return K1 * power(free, k.n);
+  if (k.formCode === KAMAL_SOUROUR) {
+    const seeded = alpha > ALPHA_SEED ? alpha : ALPHA_SEED;
+    return (K1 + K2 * power(seeded, k.m)) * power(free, k.n);
+  }
+  if (upper) return K3 * free;
+  return (K1 + K2 * alpha) * free * (k.b - alpha);
 }
 
 /** A e^(−E/RT), skipping the exponential for a term the form does not use. */
@@ -195,7 +200,7 @@ function arrhenius(a: number, eOverR: number, TK: number): number {
 /** Lee–Loos–Springer upper branch from the switch on: the switch value itself belongs to the upper branch, so a
  *  node that has landed on it moves on at the upper rate. */
 function isUpperBranch(k: PreparedKinetics, alpha: number): boolean {
-  return k.formCode === LEE_LOOS_SPRINGER && alpha >= LLS_SWITCH_ALPHA;
+  return k.formCode === LEE_LOOS_SPRINGER && alpha >= SWITCH_ALPHA;
 }
 
 /** Cure rate dα/dt in 1/s at degree of cure α and temperature TK (kelvin); ≥ 0 and finite. */
@@ -214,6 +219,10 @@ const A51 = 19372 / 6561, A52 = -25360 / 2187, A53 = 64448 / 6561, A54 = -212 / 
 const A61 = 9017 / 3168, A62 = -355 / 33, A63 = 46732 / 5247, A64 = 49 / 176, A65 = -5103 / 18656;
 const B1 = 35 / 384, B3 = 500 / 1113, B4 = 125 / 192, B5 = -2187 / 6784, B6 = 11 / 84;
 const E1 = 71 / 57600, E3 = -71 / 16695, E4 = 71 / 1920, E5 = -17253 / 339200, E6 = 22 / 525, E7 = -1 / 40;
+/** Row s of the tableau: the weights of f1..f_s in the argument of stage s + 1 (the last row: the 5th-order end value). */
+const STAGE_ROWS: readonly (readonly number[])[] = [
+  [], [A21], [A31, A32], [A41, A42, A43], [A51, A52, A53, A54], [A61, A62, A63, A64, A65], [B1, 0, B3, B4, B5, B6],
+];
 
 /** Scratch for one Dormand–Prince step: the 5th-order value, its error estimate and the end rate (FSAL). */
 interface StepResult {
@@ -227,7 +236,7 @@ function dormandPrince(
   k: PreparedKinetics, K1: number, K2: number, K3: number, centre: number, upper: boolean,
   a: number, f1: number, h: number, out: StepResult,
 ): void {
-  const f2 = rateAt(k, K1, K2, K3, centre, a + h * A21 * f1, upper);
+  const f2 = rateAt(k, K1, K2, K3, centre, a + h * (A21 * f1), upper);
   const f3 = rateAt(k, K1, K2, K3, centre, a + h * (A31 * f1 + A32 * f2), upper);
   const f4 = rateAt(k, K1, K2, K3, centre, a + h * (A41 * f1 + A42 * f2 + A43 * f3), upper);
   const f5 = rateAt(k, K1, K2, K3, centre, a + h * (A51 * f1 + A52 * f2 + A53 * f3 + A54 * f4), upper);
@@ -275,9 +284,9 @@ export function advanceCure(k: PreparedKinetics, alpha: number, TK: number, dtS:
     const tol = k.tolerance * (a + 1e-3);
     const err = step.error;
     if (err <= tol) {
-      if (lls && !upper && step.alpha >= LLS_SWITCH_ALPHA) {
-        t += landOnSwitch(k, K1, K2, K3, centre, a, f, h, (LLS_SWITCH_ALPHA - a) / (step.alpha - a));
-        a = LLS_SWITCH_ALPHA;
+      if (lls && !upper && step.alpha >= SWITCH_ALPHA) {
+        t += landOnSwitch(k, K1, K2, K3, centre, a, f, h, (SWITCH_ALPHA - a) / (step.alpha - a));
+        a = SWITCH_ALPHA;
         upper = true;
         f = rateAt(k, K1, K2, K3, centre, a, true);
       } else {
@@ -304,7 +313,7 @@ function landOnSwitch(
   let s = hMax * Math.min(Math.max(fraction, 0), 1);
   for (let it = 0; it < 20; it++) {
     dormandPrince(k, K1, K2, K3, centre, false, a, f, s, step);
-    const g = step.alpha - LLS_SWITCH_ALPHA;
+    const g = step.alpha - SWITCH_ALPHA;
     if (Math.abs(g) < 1e-14 || step.endRate <= 0) break;
     let next = s - g / step.endRate;
     if (next <= 0) next = s / 2;
@@ -312,6 +321,153 @@ function landOnSwitch(
     s = next;
   }
   return s;
+}
+
+/** Work arrays for advancing many nodes at once; allocated once per column, reused every step. */
+export interface CureBatch {
+  readonly size: number;
+  /** per listed node: start α, rate constants at its temperature, diffusion centre */
+  readonly a: Float64Array;
+  readonly K1: Float64Array;
+  readonly K2: Float64Array;
+  readonly K3: Float64Array;
+  readonly centre: Float64Array;
+  /** the stage rates f1..f7 of the Dormand–Prince step */
+  readonly f: readonly Float64Array[];
+  /** the α each stage evaluates the rate at (the 5th-order end value after the last stage) */
+  readonly x: Float64Array;
+  /** temperature, and ∂ln f/∂T at the start and the end of the step */
+  readonly T: Float64Array;
+  readonly g0: Float64Array;
+  readonly g1: Float64Array;
+  readonly sum: Float64Array;
+}
+
+export function createCureBatch(size: number): CureBatch {
+  const a = () => new Float64Array(size);
+  return { size, a: a(), K1: a(), K2: a(), K3: a(), centre: a(), f: [a(), a(), a(), a(), a(), a(), a()], x: a(), T: a(), g0: a(), g1: a(), sum: a() };
+}
+
+// Rates at x[i] for the listed nodes into out[i]. The loop keeps the rate arithmetic in one optimised
+// function: a call per rate evaluation with floating-point arguments and result costs a heap allocation per
+// number in V8 (doubles cross non-inlined calls boxed), which made the cure integration mostly garbage.
+function stageRates(k: PreparedKinetics, w: CureBatch, count: number, out: Float64Array): void {
+  const { a, K1, K2, K3, centre, x } = w;
+  for (let i = 0; i < count; i++) out[i] = rateAt(k, K1[i], K2[i], K3[i], centre[i], x[i], isUpperBranch(k, a[i]));
+}
+
+// The same for the rate constants at each node's temperature (one call site per helper keeps them inlined).
+function stageConstants(k: PreparedKinetics, w: CureBatch, count: number): void {
+  const { T, centre } = w;
+  for (let term = 0; term < 3; term++) {
+    const out = term === 0 ? w.K1 : term === 1 ? w.K2 : w.K3;
+    const a = term === 0 ? k.a1 : term === 1 ? k.a2 : k.a3;
+    const eOverR = term === 0 ? k.e1OverR : term === 1 ? k.e2OverR : k.e3OverR;
+    for (let i = 0; i < count; i++) out[i] = arrhenius(a, eOverR, T[i]);
+  }
+  for (let i = 0; i < count; i++) centre[i] = k.diffusionAlphaC0 + k.diffusionAlphaCTPerK * T[i];
+}
+
+// ...and ∂ln f/∂T at the start (α₀, rate f1) and the end (x, rate f7) of the step, where the rate is > 0:
+// each Arrhenius term contributes its E/RT² weighted by its share of the rate, the diffusion factor
+// C·α_CT·(1 − f_d). (Written out in the loop rather than called per node, for the reason above.)
+function stageSlopes(k: PreparedKinetics, w: CureBatch, count: number): void {
+  const { a, K1, K2, K3, T } = w;
+  const diffusionSlope = k.hasDiffusion ? k.diffusionC * k.diffusionAlphaCTPerK : 0;
+  for (let end = 0; end < 2; end++) {
+    const alpha = end === 0 ? a : w.x;
+    const rate = end === 0 ? w.f[0] : w.f[6];
+    const out = end === 0 ? w.g0 : w.g1;
+    for (let i = 0; i < count; i++) {
+      const r = rate[i];
+      if (!(r > 0)) {
+        out[i] = 0;
+        continue;
+      }
+      const x = alpha[i];
+      const upper = isUpperBranch(k, a[i]);
+      let eOverR: number; // rate-weighted E/R
+      if (k.formCode === NTH_ORDER) {
+        eOverR = k.e1OverR;
+      } else if (k.formCode === KAMAL_SOUROUR || !upper) {
+        const u = K2[i] * (k.formCode === KAMAL_SOUROUR ? power(x > ALPHA_SEED ? x : ALPHA_SEED, k.m) : x);
+        eOverR = (K1[i] * k.e1OverR + u * k.e2OverR) / (K1[i] + u);
+      } else {
+        eOverR = k.e3OverR;
+      }
+      let g = eOverR / (T[i] * T[i]);
+      if (k.hasDiffusion) g += diffusionSlope * (1 - r / chemicalRate(k, K1[i], K2[i], K3[i], x, upper));
+      out[i] = g;
+    }
+  }
+}
+
+/**
+ * advanceCure for the nodes listed in nodes[0..count): alphaOut[j] = advanceCure(k, alphaIn[j], TK[j], dtS),
+ * to the last bit; optionally sensitivity[j] = ∂alphaOut[j]/∂TK[j] (1/K), NaN where no cheap estimate exists.
+ * Under the time loop's step limits the first Dormand–Prince step of length dtS passes the error test at
+ * almost every node; those nodes are finished here, stage by stage across the nodes, with exactly the
+ * arithmetic of advanceCure's first step. The rest (error too large, the Lee–Loos–Springer switch inside the
+ * step, a step near the end of the reaction, invalid input) go through advanceCure itself.
+ */
+export function advanceCureBatch(
+  k: PreparedKinetics, alphaIn: Float64Array, TK: Float64Array, dtS: number, alphaOut: Float64Array,
+  nodes: Int32Array, count: number, w: CureBatch, sensitivity?: Float64Array,
+): void {
+  if (count > w.size) throw new RangeError(`advanceCureBatch: ${count} nodes for a batch of ${w.size}`);
+  const { a: a0, x, T, g0, g1 } = w;
+  const [f1, , f3, f4, f5, f6, f7] = w.f;
+  const h = dtS;
+  for (let i = 0; i < count; i++) {
+    const j = nodes[i];
+    T[i] = TK[j];
+    a0[i] = alphaIn[j] < ALPHA_MAX ? alphaIn[j] : ALPHA_MAX;
+    x[i] = a0[i];
+  }
+  stageConstants(k, w, count);
+  // The stages of dormandPrince(), each across all the nodes: x = α₀ + h·Σ A_sr f_r, summed in the same order.
+  const { f, sum } = w;
+  for (let stage = 0; stage < 7; stage++) {
+    if (stage > 0) {
+      const row = STAGE_ROWS[stage];
+      for (let i = 0; i < count; i++) sum[i] = row[0] * f1[i];
+      for (let r = 1; r < row.length; r++) {
+        const c = row[r];
+        if (c === 0) continue;
+        const fr = f[r];
+        for (let i = 0; i < count; i++) sum[i] += c * fr[i];
+      }
+      for (let i = 0; i < count; i++) x[i] = a0[i] + h * sum[i];
+    }
+    stageRates(k, w, count, f[stage]);
+  }
+  if (sensitivity) stageSlopes(k, w, count);
+  const lls = k.formCode === LEE_LOOS_SPRINGER;
+  for (let i = 0; i < count; i++) {
+    const j = nodes[i];
+    const a = a0[i];
+    const a5 = x[i];
+    const upper = isUpperBranch(k, a);
+    const err = Math.abs(h * (E1 * f1[i] + E3 * f3[i] + E4 * f4[i] + E5 * f5[i] + E6 * f6[i] + E7 * f7[i]));
+    const room = (lls && !upper ? k.b : 1) - a;
+    // advanceCure refuses a non-physical temperature or degree of cure: let it be the one to say so.
+    const valid = TK[j] > 0 && TK[j] < Infinity && alphaIn[j] >= 0 && alphaIn[j] <= 1;
+    if (valid && f1[i] === 0) {
+      alphaOut[j] = a; // an equilibrium at this temperature, as in advanceCure
+      if (sensitivity) sensitivity[j] = 0;
+    } else if (valid && h * f1[i] <= 0.5 * room && err <= k.tolerance * (a + 1e-3) && !(lls && !upper && a5 >= SWITCH_ALPHA)) {
+      const next = a5 < ALPHA_MAX ? a5 : ALPHA_MAX;
+      alphaOut[j] = next > a ? next : a;
+      if (sensitivity) {
+        // ∂α₁/∂T of the step: with h = ∫ dα/f over [α₀, α₁] held fixed, ∂α₁/∂T = f(α₁)·∫₀ʰ ∂ln f/∂T dt;
+        // the integral by the trapezoidal rule (the slope barely changes over a step of Δα ≤ ~0.005).
+        sensitivity[j] = f7[i] * 0.5 * h * (g0[i] + g1[i]);
+      }
+    } else {
+      alphaOut[j] = advanceCure(k, alphaIn[j], TK[j], dtS);
+      if (sensitivity) sensitivity[j] = Number.NaN; // no cheap slope after sub-steps or the switch
+    }
+  }
 }
 
 /**

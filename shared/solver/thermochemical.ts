@@ -2,7 +2,7 @@ import type { StudyParams } from '../schemas/study';
 import { kjPerKgToJPerKg, mmToM } from '../units';
 import { glassTransitionK, prepareGlassTransition, type GlassTransitionK } from './glass-transition';
 import { createHeatColumn, heatStep, storedHeat, transverseConductivity, volumetricHeatCapacity, type BoundaryHeat, type HeatColumn, type HeatLayer } from './heat-transfer';
-import { advanceCure, cureRate, initialDegreeOfCure, prepareKinetics, type PreparedKinetics } from './kinetics';
+import { ALPHA_MAX, advanceCureBatch, createCureBatch, cureRate, initialDegreeOfCure, prepareKinetics, type CureBatch, type PreparedKinetics } from './kinetics';
 
 // Heat and cure coupled through the reaction heat q = ρ_r (1 − V_f) H_R dα/dt (physics.md §2–§3).
 //
@@ -14,8 +14,12 @@ import { advanceCure, cureRate, initialDegreeOfCure, prepareKinetics, type Prepa
 // that came out that the cure increment would change by less than 1e-7 (bounded through the largest activation
 // energy: δ(Δα) ≈ Δα·θ·(E_max/RT² + C|α_CT|)·δT), and never before that temperature is within 1 K. A step
 // with no cure to speak of is therefore done after one pass; the first pass starts from Tⁿ⁺¹ extrapolated
-// from the last step, so a reacting step usually needs two. Because the source is exactly the heat of the cure increments used, the energy balance closes to
-// rounding for any number of passes. If the passes do not settle (a step far too long for a runaway exotherm),
+// from the last step, so a reacting step usually needs two. Only the first pass integrates the cure at every
+// node (all nodes at once, kinetics.advanceCureBatch, which also returns each increment's slope ∂α/∂T); later
+// passes move the temperature by hundredths of a kelvin and carry each increment over along that slope
+// when the neglected second-order part is below 1e-8, integrating again only where it is not. Because the
+// source is exactly the heat of the cure increments used, the energy balance closes to rounding for any
+// number of passes. If the passes do not settle (a step far too long for a runaway exotherm),
 // the step is split in halves internally, so the caller never sees an unconverged state.
 
 /** What the coupled column needs from a study (a structural subset of StudyParams, engineering units). */
@@ -88,6 +92,10 @@ export interface ThermochemicalState {
     TOld: Float64Array; TNew: Float64Array; TGuess: Float64Array; TPrev: Float64Array; source: Float64Array;
     alphaOld: Float64Array; alphaNew: Float64Array; TKin: Float64Array; alpha0: Float64Array; T0: Float64Array;
     heat: BoundaryHeat; prevDtS: number;
+    /** laminate nodes whose cure a pass integrates, and the batch integrator's scratch */
+    cureNodes: Int32Array; cureBatch: CureBatch;
+    /** per laminate node: kinetic temperature and result of its last full cure integration, and ∂α/∂T there */
+    TFull: Float64Array; alphaFull: Float64Array; slope: Float64Array;
   };
 }
 
@@ -164,6 +172,8 @@ export function createThermochemical(p: ThermochemicalParams, options: Thermoche
       source: new Float64Array(n), alphaOld: new Float64Array(nLam), alphaNew: new Float64Array(nLam), TKin: new Float64Array(nLam),
       alpha0: new Float64Array(alpha), T0: new Float64Array(allTK),
       heat: { bottomJPerM2: 0, topJPerM2: 0 }, prevDtS: 0,
+      cureNodes: new Int32Array(nLam), cureBatch: createCureBatch(nLam),
+      TFull: new Float64Array(nLam), alphaFull: new Float64Array(nLam), slope: new Float64Array(nLam),
     },
   };
 }
@@ -172,6 +182,8 @@ export function createThermochemical(p: ThermochemicalParams, options: Thermoche
 const COUPLING_ALPHA_TOL = 1e-7;
 /** ...and the temperature fed to the cure must be this close to the result whatever the cure. */
 const COUPLING_MAX_K = 1;
+/** Largest second-order error a pass may leave by carrying a cure increment over linearly (see tryStep). */
+const LINEAR_ALPHA_TOL = 0.1 * COUPLING_ALPHA_TOL;
 const MAX_PASSES = 12;
 const MAX_SPLIT_DEPTH = 12;
 
@@ -206,7 +218,7 @@ function advanceSplitting(s: ThermochemicalState, dtS: number, airK: number, too
 // One step with Picard passes; commits and returns true when converged, leaves the state untouched otherwise.
 function tryStep(s: ThermochemicalState, dtS: number, airK: number, toolAirK: number): boolean {
   const { column, kinetics: k, theta, alpha, nodeLaminateM, laminateStart: off, allTK } = s;
-  const { TOld, TNew, TGuess, TPrev, source, alphaOld, alphaNew, TKin, heat } = s.work;
+  const { TOld, TNew, TGuess, TPrev, source, alphaOld, alphaNew, TKin, heat, cureNodes, cureBatch, TFull, alphaFull, slope } = s.work;
   const n = column.nodes;
   const nLam = alpha.length;
   TOld.set(allTK);
@@ -218,20 +230,50 @@ function tryStep(s: ThermochemicalState, dtS: number, airK: number, toolAirK: nu
   // d ln(Δα)/dT bound per kelvin, without the 1/T² of the Arrhenius part (applied per node).
   const eMaxOverR = Math.max(k.a1 !== 0 ? k.e1OverR : 0, k.a2 !== 0 ? k.e2OverR : 0, k.a3 !== 0 ? k.e3OverR : 0);
   const diffusionSens = k.hasDiffusion ? k.diffusionC * Math.abs(k.diffusionAlphaCTPerK) : 0;
+  // Second-derivative bound of ln(Δα) in T per node (the Arrhenius curvature, the spread between two
+  // Arrhenius terms, the diffusion factor's logistic), for the remainder of the linear update below.
+  const eMinOverR = Math.min(k.a1 !== 0 ? k.e1OverR : Infinity, k.a2 !== 0 ? k.e2OverR : Infinity, k.a3 !== 0 ? k.e3OverR : Infinity);
+  const eSpreadOverR = Number.isFinite(eMinOverR) ? eMaxOverR - eMinOverR : 0;
   let passes = 1;
   let converged = false;
   for (; passes <= MAX_PASSES; passes++) {
+    let count = 0;
     for (let j = 0; j < nLam; j++) {
       const Tk = (1 - theta) * TOld[off + j] + theta * TGuess[off + j];
-      if (passes > 1) {
-        // A node whose kinetic temperature barely moved since the last pass keeps its cure increment.
-        const sens = eMaxOverR / (Tk * Tk) + diffusionSens;
-        if (Math.abs(Tk - TKin[j]) * sens * (alphaNew[j] - alphaOld[j]) < 1e-3 * COUPLING_ALPHA_TOL) continue;
-      }
       TKin[j] = Tk;
-      alphaNew[j] = advanceCure(k, alphaOld[j], Tk, dtS);
-      source[off + j] = qPerAlpha * nodeLaminateM[j] * (alphaNew[j] - alphaOld[j]);
+      if (passes > 1) {
+        // Later passes move the kinetic temperature by little: carry the cure increment of the last full
+        // integration over by its slope ∂α/∂T when the neglected second-order part, ½(Sδ)²/Δα for an
+        // Arrhenius-like exponential growth plus ½κδ²Δα for the curvature of ln(rate) in T, stays under
+        // LINEAR_ALPHA_TOL; otherwise integrate again.
+        const delta = Tk - TFull[j];
+        const S = slope[j];
+        const dA = alphaFull[j] - alphaOld[j];
+        if (delta === 0) {
+          alphaNew[j] = alphaFull[j];
+          continue;
+        }
+        if (Number.isFinite(S)) {
+          const invT2 = 1 / (Tk * Tk);
+          const kappa = 2 * eMaxOverR * invT2 / Tk + 0.25 * (eSpreadOverR * invT2) ** 2 + 0.25 * diffusionSens * diffusionSens;
+          const change = S * delta;
+          const remainder = (dA > 0 ? (0.5 * change * change) / dA : change === 0 ? 0 : Infinity) + 0.5 * kappa * delta * delta * dA;
+          if (remainder <= LINEAR_ALPHA_TOL) {
+            const a = alphaFull[j] + change;
+            alphaNew[j] = a < alphaOld[j] ? alphaOld[j] : a > ALPHA_MAX ? ALPHA_MAX : a;
+            continue;
+          }
+        }
+      }
+      cureNodes[count++] = j;
     }
+    advanceCureBatch(k, alphaOld, TKin, dtS, alphaNew, cureNodes, count, cureBatch, slope);
+    for (let i = 0; i < count; i++) {
+      const j = cureNodes[i];
+      TFull[j] = TKin[j];
+      alphaFull[j] = alphaNew[j];
+    }
+    for (let j = 0; j < nLam; j++) source[off + j] = qPerAlpha * nodeLaminateM[j] * (alphaNew[j] - alphaOld[j]);
     heatStep(column, TOld, TNew, dtS, theta, s.toolAirK, toolAirK, s.airK, airK, source, heat);
     let worstT = 0;
     let worstAlpha = 0;
