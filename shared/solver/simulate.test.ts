@@ -223,7 +223,7 @@ describe('simulate: exotherm of thick sections', () => {
 describe('simulate: step-size convergence', () => {
   it('halving the step limits shrinks the change in results by the expected order', () => {
     // Expected order: Crank–Nicolson in time with the cure integrated at the step-midpoint temperature is
-    // second order (Crank & Nicolson, Proc. Camb. Phil. Soc. 43, 1947), so each halving of every step limit
+    // second order (Crank & Nicolson, Proc. Camb. Phil. Soc. 43, 1947 (memory)), so each halving of every step limit
     // should shrink the change about 4× (Richardson's argument: log2 ratio ≈ 2). Clock-started holds keep the
     // schedule fixed; values are read at segment ends, where every run lands exactly.
     const ref = structuredClone(referenceStudy());
