@@ -15,6 +15,8 @@ let viewer: SignedIn;
 let studyId: number;
 let partId: number;
 let demoCsv: string;
+let seededRows: number;
+let seededChunks: number;
 
 beforeAll(async () => {
   h = await startHarness();
@@ -32,16 +34,35 @@ beforeEach(async () => {
   const latest = (await h.db.models.Revision.findOne({ where: { studyId, number: study.latestRevisionNumber } }))!;
   // the run followed the study's latest cycle, except for the second hold (the demo's excursion)
   demoCsv = demoRunLogCsv(parseStudy(latest.params), { start: '2026-04-02T07:10:00' });
+  seededRows = await runLogRows();
+  seededChunks = await chunkRows();
 });
 
 const runLogRows = () => h.db.models.Upload.count({ where: { kind: 'run-log', studyId } });
 const chunkRows = () => UploadChunk.count();
+/** Nothing was stored beyond what the seed put there. */
+async function expectNothingStored() {
+  expect(await runLogRows()).toBe(seededRows);
+  expect(await chunkRows()).toBe(seededChunks);
+}
 
 function upload(who: SignedIn, csv: string | Buffer, mapping: unknown, name = 'job-4471.csv', type = 'text/csv') {
   const req = who.agent.post(`/api/studies/${studyId}/run-logs`).set('X-CSRF-Token', who.csrf);
   const withMapping = mapping === undefined ? req : req.field('mapping', typeof mapping === 'string' ? mapping : JSON.stringify(mapping));
   return withMapping.attach('file', Buffer.isBuffer(csv) ? csv : Buffer.from(csv), { filename: name, contentType: type });
 }
+
+describe('the demo run log in the seed', () => {
+  it('is there with its one excursion, its replay and no decision yet', async () => {
+    const list = await call(viewer, 'get', `/api/parts/${partId}/run-logs`).expect(200);
+    expect(list.body).toHaveLength(1);
+    expect(list.body[0]).toMatchObject({ uploadedBy: { login: 'tomas.reed' }, findings: { violations: 1, warnings: 0 }, review: null });
+    const detail = await call(viewer, 'get', `/api/run-logs/${list.body[0].id}`).expect(200);
+    expect(detail.body.record.spec.findings[0].message).toMatch(/^hold 2 at 180 °C lasted 17\d(\.\d+)? min/);
+    expect(detail.body.record.replay.summary.finalCureMin).toBeGreaterThan(0.5);
+    expect(detail.body.role).toBe('viewer');
+  });
+});
 
 describe('inspecting a run log', () => {
   it('proposes a mapping and stores nothing', async () => {
@@ -52,7 +73,7 @@ describe('inspecting a run log', () => {
       .expect(200);
     expect(res.body.proposal.map((c: { role: string }) => c.role)).toEqual(['time', 'air', 'tool', 'part', 'part', 'part', 'pressure', 'vacuum', 'ignore']);
     expect(res.body.previewRows).toHaveLength(10);
-    expect(await runLogRows()).toBe(0);
+    await expectNothingStored();
   });
 });
 
@@ -74,15 +95,15 @@ describe('uploading a run log', () => {
     const file = await viewer.agent.get(`/api/run-logs/${res.body.id}/file`).expect(200);
     expect(file.text).toBe(demoCsv);
     expect(file.headers['x-checksum-sha256']).toBe(res.body.checksumSha256);
-    expect(await chunkRows()).toBeGreaterThanOrEqual(2);
+    expect(await chunkRows()).toBeGreaterThanOrEqual(seededChunks + 2);
     const audit = await h.db.models.AuditEvent.findOne({ where: { action: 'run-log.upload', subjectId: res.body.id } });
     expect(audit).not.toBeNull();
     // listed on the study and in the part's history
     const list = await call(viewer, 'get', `/api/studies/${studyId}/run-logs`).expect(200);
-    expect(list.body.map((r: { id: number }) => r.id)).toEqual([res.body.id]);
-    expect(list.body[0].findings).toEqual({ violations: 1, warnings: 0 });
+    expect(list.body).toHaveLength(seededRows + 1);
+    expect(list.body[0]).toMatchObject({ id: res.body.id, findings: { violations: 1, warnings: 0 } });
     const history = await call(viewer, 'get', `/api/parts/${partId}/run-logs`).expect(200);
-    expect(history.body.map((r: { id: number }) => r.id)).toEqual([res.body.id]);
+    expect(history.body[0].id).toBe(res.body.id);
   });
 
   it('refuses the same file twice for the same study', async () => {
@@ -107,15 +128,14 @@ describe('uploading a run log', () => {
     expect(res.body).toMatchObject({ field: 'file', line: where.line, column: where.column });
     expect(res.body.reason).toMatch(where.reason);
     expect(res.body.error).toMatch(/^The run log was refused: /);
-    expect(await runLogRows()).toBe(0);
-    expect(await chunkRows()).toBe(0);
+    await expectNothingStored();
   });
 
   it('refuses a file over 50 MB with 413 and stores nothing', async () => {
     const big = Buffer.alloc(50 * 1024 * 1024 + 1, 'a');
     const res = await upload(engineer, big, inspectRunLog(demoCsv).mapping).expect(413);
     expect(res.body.error).toMatch(/too large/i);
-    expect(await runLogRows()).toBe(0);
+    await expectNothingStored();
   });
 
   it('refuses a file that is not a text export', async () => {
@@ -131,7 +151,7 @@ describe('uploading a run log', () => {
     twoAirs.columns[2] = { ...twoAirs.columns[2], role: 'air' } as (typeof twoAirs.columns)[number];
     const bad = await upload(engineer, demoCsv, twoAirs).expect(400);
     expect(bad.body.error).toContain('2 columns mapped as air: allowed at most one');
-    expect(await runLogRows()).toBe(0);
+    await expectNothingStored();
   });
 
   it('lets only engineers and leads upload; outsiders do not see the study', async () => {
@@ -140,7 +160,7 @@ describe('uploading a run log', () => {
     const outsider = await signIn(h, { login: 'lou.stranger', name: 'Lou Stranger', email: 'lou@elsewhere.example' });
     await upload(outsider, demoCsv, mapping).expect(404);
     await call(outsider, 'get', `/api/studies/${studyId}/run-logs`).expect(404);
-    expect(await runLogRows()).toBe(0);
+    await expectNothingStored();
   });
 });
 

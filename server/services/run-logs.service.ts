@@ -150,7 +150,7 @@ export interface StoreRunLogInput {
 }
 
 /** The upload row, the raw file, the parsed series and the audit event, inside the caller's transaction. */
-export async function storeRunLog(transaction: Transaction, input: StoreRunLogInput) {
+export async function storeRunLog(transaction: Transaction, input: StoreRunLogInput, options: { audit?: boolean } = {}) {
   const upload = await Upload.create(
     {
       teamId: input.teamId,
@@ -167,6 +167,7 @@ export async function storeRunLog(transaction: Transaction, input: StoreRunLogIn
   );
   await storeChunks(upload.id, 'raw', input.file.buffer, transaction);
   await storeChunks(upload.id, 'series', input.series, transaction);
+  if (options.audit === false) return upload; // the demo seed records its own single event
   await AuditEvent.create(
     {
       teamId: input.teamId,
