@@ -5,6 +5,7 @@
  */
 import { createStore, useStore } from 'zustand';
 import type { SimulationResult } from '../model/simulation-result';
+import { defaultExaggeration } from '../model/exaggeration';
 
 export type ResultsState = {
   result: SimulationResult | null;
@@ -61,6 +62,8 @@ export function createResultsStore() {
         solveMs,
         error: null,
         ...(s.result === null && s.scrubMin === 0 ? { scrubMin: Math.max(0, result.summary.peakOvershootTimeMin) } : {}),
+        // …and picks an exaggeration that makes the shape visible (the strip is drawn at about 1 px/mm).
+        ...(s.result === null ? { exaggeration: defaultExaggeration(result.summary.warpageMm, result.summary.springInDeg, 1) } : {}),
       })),
     setBusy: (busy) => set({ busy }),
     setError: (error) => set({ error }),

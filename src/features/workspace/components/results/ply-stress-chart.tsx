@@ -31,9 +31,10 @@ function StressStrip({ result, c, zTopMm }: { result: SimulationResult; c: Compo
     segments.push(`M${x(0)},${y(z0)}L${x(values[i])},${y(z0)}L${x(values[i + 1])},${y(z1)}L${x(0)},${y(z1)}Z`);
   }
   const peak = values.reduce((m, v) => (Math.abs(v) > Math.abs(m) ? v : m), 0);
+  const peakText = Math.abs(peak) < 0.05 ? '0.0' : peak.toFixed(1);
   return (
     <figure className="flex flex-col items-center">
-      <svg width={W} height={H} role="img" aria-label={`${c.label} through the thickness, peak ${peak.toFixed(1)} MPa`}>
+      <svg width={W} height={H} role="img" aria-label={`${c.label} through the thickness, peak ${peakText} MPa`}>
         <g transform={`translate(${M.left},${M.top})`}>
           <line x1={x(0)} x2={x(0)} y1={0} y2={ph} stroke="var(--color-ink-faint)" />
           <path d={segments.join('')} fill={c.colour} fillOpacity={0.3} stroke={c.colour} strokeWidth={1} />
@@ -50,7 +51,7 @@ function StressStrip({ result, c, zTopMm }: { result: SimulationResult; c: Compo
       </svg>
       <figcaption className="text-center text-[11px] leading-tight text-ink-soft">
         {c.label}
-        <span className="num block">peak {peak.toFixed(1)} MPa</span>
+        <span className="num block">peak {peakText} MPa</span>
       </figcaption>
     </figure>
   );

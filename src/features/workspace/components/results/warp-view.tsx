@@ -33,7 +33,10 @@ export const WarpView = memo(function WarpView() {
     const half = ((angleDeg / 2) * Math.PI) / 180;
     return `M${apex.x - leg * Math.sin(half)},${apex.y - leg * Math.cos(half)}L${apex.x},${apex.y}L${apex.x + leg * Math.sin(half)},${apex.y - leg * Math.cos(half)}`;
   };
-  const sprung = Math.max(1, cornerDeg - springInDeg * factor);
+  // Past a closed corner the drawing would mean nothing: stop at 5° and say so.
+  const sprungRaw = cornerDeg - springInDeg * factor;
+  const sprung = Math.min(179, Math.max(5, sprungRaw));
+  const clipped = sprung !== sprungRaw;
 
   return (
     <div data-testid="warp-view">
@@ -63,19 +66,22 @@ export const WarpView = memo(function WarpView() {
           corner, as designed (dashed) and sprung in
         </text>
       </svg>
+      {clipped && <p className="text-[11px] text-saffron">Corner drawn at its limit; lower the exaggeration to see it true.</p>}
       <label className="mt-1 flex items-center gap-2 text-xs text-ink-soft">
         Exaggeration
+        {/* A logarithmic slider: 0 → ×1, 3 → ×1000. */}
         <input
           type="range"
-          min={1}
-          max={200}
-          step={1}
-          value={factor}
-          onChange={(e) => setFactor(Number(e.target.value))}
+          min={0}
+          max={3}
+          step={0.05}
+          value={Math.log10(factor)}
+          onChange={(e) => setFactor(Math.round(10 ** Number(e.target.value)))}
           className="flex-1 accent-slate"
           aria-valuetext={`${factor} times`}
+          data-testid="exaggeration"
         />
-        <span className="num w-12 text-right">×{factor}</span>
+        <span className="num w-14 text-right">×{factor}</span>
       </label>
     </div>
   );
