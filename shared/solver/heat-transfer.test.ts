@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import {
-  createHeatColumn, heatStep, storedHeat, thomasSolve, transverseConductivity, volumetricHeatCapacity,
-  type BoundaryHeat, type HeatColumn,
+  createHeatColumn, heatStep, prepareHeatStep, solveHeatStep, storedHeat, thomasSolve, transverseConductivity,
+  volumetricHeatCapacity, type BoundaryHeat, type HeatColumn,
 } from './heat-transfer';
 import { expectClose } from './test-support/expect-close';
 
@@ -34,6 +34,35 @@ describe('ply thermal properties', () => {
   it('volumetric heat capacity is the volume average of ρc', () => {
     // rule of mixtures on heat capacity per unit volume: 0.6·1800·800 + 0.4·1250·1200 by hand
     expectClose(volumetricHeatCapacity(1800, 800, 1250, 1200, 0.6), 1.464e6, 1e-12);
+  });
+});
+
+describe('prepared step, several sources', () => {
+  it('prepare once and solve per source gives what heatStep gives, to the last bit, also when the step is reused', () => {
+    // consistency of the split (no outside source): the coupled step solves one step with several sources
+    const layers = [
+      { thicknessM: 0.01, intervals: 6, conductivityWPerMK: 167, volumetricHeatCapacity: 2.43e6 },
+      { thicknessM: 0.004, intervals: 16, conductivityWPerMK: 0.6, volumetricHeatCapacity: 1.6e6 },
+    ];
+    const a = createHeatColumn(layers, 60, 50);
+    const b = createHeatColumn(layers, 60, 50);
+    const n = a.nodes;
+    const TOld = Float64Array.from({ length: n }, (_, i) => 350 + 0.3 * i);
+    const source = new Float64Array(n);
+    const viaStep = new Float64Array(n);
+    const viaSplit = new Float64Array(n);
+    const h1: BoundaryHeat = { bottomJPerM2: 0, topJPerM2: 0 };
+    const h2: BoundaryHeat = { bottomJPerM2: 0, topJPerM2: 0 };
+    for (const [dt, air] of [[30, 360], [30, 361], [12.5, 362]]) {
+      prepareHeatStep(b, TOld, dt, 0.5, air - 1, air, air - 1, air);
+      for (const q of [0, 800, 1900]) {
+        for (let i = 6; i < n; i++) source[i] = q * (1 + 0.1 * i);
+        const qa = heatStep(a, TOld, viaStep, dt, 0.5, air - 1, air, air - 1, air, source, h1);
+        const qb = solveHeatStep(b, TOld, viaSplit, source, h2);
+        expect(Array.from(viaSplit)).toEqual(Array.from(viaStep));
+        expect([qb, h2.bottomJPerM2, h2.topJPerM2]).toEqual([qa, h1.bottomJPerM2, h1.topJPerM2]);
+      }
+    }
   });
 });
 

@@ -51,6 +51,23 @@ export interface HeatColumn {
   readonly upper: Float64Array;
   readonly rhs: Float64Array;
   readonly scratch: Float64Array;
+  /** the step prepared by prepareHeatStep: its right-hand side without the source, and the Thomas pivots */
+  readonly baseRhs: Float64Array;
+  readonly pivot: Float64Array;
+  readonly step: PreparedHeatStep;
+}
+
+/** What prepareHeatStep fixed for the solves of one step. */
+interface PreparedHeatStep {
+  dtS: number;
+  theta: number;
+  bottomAirOldK: number;
+  bottomAirNewK: number;
+  topAirOldK: number;
+  topAirNewK: number;
+  /** dtS and θ the matrix and its pivots were built for (NaN: none yet) */
+  factoredDtS: number;
+  factoredTheta: number;
 }
 
 export function createHeatColumn(layers: readonly HeatLayer[], hBottomWPerM2K: number, hTopWPerM2K: number): HeatColumn {
@@ -88,7 +105,11 @@ export function createHeatColumn(layers: readonly HeatLayer[], hBottomWPerM2K: n
   return {
     nodes, zM, capacity, conductance, hBottom: hBottomWPerM2K, hTop: hTopWPerM2K,
     lower: new Float64Array(nodes), diag: new Float64Array(nodes), upper: new Float64Array(nodes),
-    rhs: new Float64Array(nodes), scratch: new Float64Array(nodes),
+    rhs: new Float64Array(nodes), scratch: new Float64Array(nodes), baseRhs: new Float64Array(nodes), pivot: new Float64Array(nodes),
+    step: {
+      dtS: Number.NaN, theta: Number.NaN, bottomAirOldK: Number.NaN, bottomAirNewK: Number.NaN, topAirOldK: Number.NaN, topAirNewK: Number.NaN,
+      factoredDtS: Number.NaN, factoredTheta: Number.NaN,
+    },
   };
 }
 
@@ -125,11 +146,25 @@ export function heatStep(
   bottomAirOldK: number, bottomAirNewK: number, topAirOldK: number, topAirNewK: number,
   sourceJPerM2: Float64Array | null, heat: BoundaryHeat,
 ): number {
+  prepareHeatStep(col, TOld, dtS, theta, bottomAirOldK, bottomAirNewK, topAirOldK, topAirNewK);
+  return solveHeatStep(col, TOld, TNew, sourceJPerM2, heat);
+}
+
+/**
+ * The part of heatStep that does not depend on the source: the matrix, its Thomas pivots (kept while dtS and θ
+ * stay the same) and the right-hand side from TOld and the air. A coupled step solves several times with
+ * different sources; each solve is then one forward and one back substitution (solveHeatStep).
+ */
+export function prepareHeatStep(
+  col: HeatColumn, TOld: Float64Array, dtS: number, theta: number,
+  bottomAirOldK: number, bottomAirNewK: number, topAirOldK: number, topAirNewK: number,
+): void {
   const n = col.nodes;
-  const { capacity: C, conductance: G, lower, diag, upper, rhs } = col;
+  const { capacity: C, conductance: G, lower, diag, upper, baseRhs, scratch, pivot, step } = col;
   const ex = 1 - theta;
   const hb = col.hBottom;
   const ht = col.hTop;
+  const refactor = !(dtS === step.factoredDtS && theta === step.factoredTheta);
   for (let i = 0; i < n; i++) {
     const gDown = i > 0 ? G[i - 1] : 0;
     const gUp = i < n - 1 ? G[i] : 0;
@@ -147,16 +182,50 @@ export function heatStep(
       d += theta * ht;
       r += ht * (ex * (topAirOldK - TOld[n - 1]) + theta * topAirNewK);
     }
-    if (sourceJPerM2) r += sourceJPerM2[i] / dtS;
-    lower[i] = -theta * gDown;
-    upper[i] = -theta * gUp;
-    diag[i] = d;
-    rhs[i] = r;
+    if (refactor) {
+      lower[i] = -theta * gDown;
+      upper[i] = -theta * gUp;
+      diag[i] = d;
+    }
+    baseRhs[i] = r;
   }
-  thomasSolve(lower, diag, upper, rhs, TNew, n, col.scratch);
+  if (refactor) {
+    // Thomas forward elimination of the matrix alone (thomasSolve's order of operations).
+    let beta = diag[0];
+    pivot[0] = beta;
+    for (let i = 1; i < n; i++) {
+      scratch[i] = upper[i - 1] / beta;
+      beta = diag[i] - lower[i] * scratch[i];
+      pivot[i] = beta;
+    }
+    step.factoredDtS = dtS;
+    step.factoredTheta = theta;
+  }
+  step.dtS = dtS;
+  step.theta = theta;
+  step.bottomAirOldK = bottomAirOldK;
+  step.bottomAirNewK = bottomAirNewK;
+  step.topAirOldK = topAirOldK;
+  step.topAirNewK = topAirNewK;
+}
+
+/**
+ * Solve the step prepared by prepareHeatStep (same TOld) with the given source: the numbers thomasSolve would
+ * give for heatStep's system. Writes the split boundary heat into `heat` and returns the total, J/m².
+ */
+export function solveHeatStep(col: HeatColumn, TOld: Float64Array, TNew: Float64Array, sourceJPerM2: Float64Array | null, heat: BoundaryHeat): number {
+  const n = col.nodes;
+  const { lower, rhs, baseRhs, scratch, pivot, step } = col;
+  const { dtS, theta } = step;
+  if (!(dtS > 0)) throw new Error('solveHeatStep: no step prepared (call prepareHeatStep first)');
+  for (let i = 0; i < n; i++) rhs[i] = sourceJPerM2 ? baseRhs[i] + sourceJPerM2[i] / dtS : baseRhs[i];
+  TNew[0] = rhs[0] / pivot[0];
+  for (let i = 1; i < n; i++) TNew[i] = (rhs[i] - lower[i] * TNew[i - 1]) / pivot[i];
+  for (let i = n - 2; i >= 0; i--) TNew[i] -= scratch[i + 1] * TNew[i + 1];
   // The same θ-weighted face fluxes the scheme used, so the bookkeeping matches the discrete balance.
-  heat.bottomJPerM2 = dtS * hb * (ex * (bottomAirOldK - TOld[0]) + theta * (bottomAirNewK - TNew[0]));
-  heat.topJPerM2 = dtS * ht * (ex * (topAirOldK - TOld[n - 1]) + theta * (topAirNewK - TNew[n - 1]));
+  const ex = 1 - theta;
+  heat.bottomJPerM2 = dtS * col.hBottom * (ex * (step.bottomAirOldK - TOld[0]) + theta * (step.bottomAirNewK - TNew[0]));
+  heat.topJPerM2 = dtS * col.hTop * (ex * (step.topAirOldK - TOld[n - 1]) + theta * (step.topAirNewK - TNew[n - 1]));
   return heat.bottomJPerM2 + heat.topJPerM2;
 }
 

@@ -219,10 +219,6 @@ const A51 = 19372 / 6561, A52 = -25360 / 2187, A53 = 64448 / 6561, A54 = -212 / 
 const A61 = 9017 / 3168, A62 = -355 / 33, A63 = 46732 / 5247, A64 = 49 / 176, A65 = -5103 / 18656;
 const B1 = 35 / 384, B3 = 500 / 1113, B4 = 125 / 192, B5 = -2187 / 6784, B6 = 11 / 84;
 const E1 = 71 / 57600, E3 = -71 / 16695, E4 = 71 / 1920, E5 = -17253 / 339200, E6 = 22 / 525, E7 = -1 / 40;
-/** Row s of the tableau: the weights of f1..f_s in the argument of stage s + 1 (the last row: the 5th-order end value). */
-const STAGE_ROWS: readonly (readonly number[])[] = [
-  [], [A21], [A31, A32], [A41, A42, A43], [A51, A52, A53, A54], [A61, A62, A63, A64, A65], [B1, 0, B3, B4, B5, B6],
-];
 
 /** Scratch for one Dormand–Prince step: the 5th-order value, its error estimate and the end rate (FSAL). */
 interface StepResult {
@@ -340,12 +336,13 @@ export interface CureBatch {
   readonly T: Float64Array;
   readonly g0: Float64Array;
   readonly g1: Float64Array;
-  readonly sum: Float64Array;
+  /** 1 where the node was finished by the batch's own step (so the stage values describe it), 0 otherwise */
+  readonly own: Uint8Array;
 }
 
 export function createCureBatch(size: number): CureBatch {
   const a = () => new Float64Array(size);
-  return { size, a: a(), K1: a(), K2: a(), K3: a(), centre: a(), f: [a(), a(), a(), a(), a(), a(), a()], x: a(), T: a(), g0: a(), g1: a(), sum: a() };
+  return { size, a: a(), K1: a(), K2: a(), K3: a(), centre: a(), f: [a(), a(), a(), a(), a(), a(), a()], x: a(), T: a(), g0: a(), g1: a(), own: new Uint8Array(size) };
 }
 
 // Rates at x[i] for the listed nodes into out[i]. The loop keeps the rate arithmetic in one optimised
@@ -404,7 +401,7 @@ function stageSlopes(k: PreparedKinetics, w: CureBatch, count: number): void {
 
 /**
  * advanceCure for the nodes listed in nodes[0..count): alphaOut[j] = advanceCure(k, alphaIn[j], TK[j], dtS),
- * to the last bit; optionally sensitivity[j] = ∂alphaOut[j]/∂TK[j] (1/K), NaN where no cheap estimate exists.
+ * to the last bit (cureBatchSlopes then gives each result's temperature slope).
  * Under the time loop's step limits the first Dormand–Prince step of length dtS passes the error test at
  * almost every node; those nodes are finished here, stage by stage across the nodes, with exactly the
  * arithmetic of advanceCure's first step. The rest (error too large, the Lee–Loos–Springer switch inside the
@@ -412,11 +409,10 @@ function stageSlopes(k: PreparedKinetics, w: CureBatch, count: number): void {
  */
 export function advanceCureBatch(
   k: PreparedKinetics, alphaIn: Float64Array, TK: Float64Array, dtS: number, alphaOut: Float64Array,
-  nodes: Int32Array, count: number, w: CureBatch, sensitivity?: Float64Array,
+  nodes: Int32Array, count: number, w: CureBatch,
 ): void {
   if (count > w.size) throw new RangeError(`advanceCureBatch: ${count} nodes for a batch of ${w.size}`);
-  const { a: a0, x, T, g0, g1 } = w;
-  const [f1, , f3, f4, f5, f6, f7] = w.f;
+  const { a: a0, x, T, own } = w;
   const h = dtS;
   for (let i = 0; i < count; i++) {
     const j = nodes[i];
@@ -425,23 +421,34 @@ export function advanceCureBatch(
     x[i] = a0[i];
   }
   stageConstants(k, w, count);
-  // The stages of dormandPrince(), each across all the nodes: x = α₀ + h·Σ A_sr f_r, summed in the same order.
-  const { f, sum } = w;
+  // The stages of dormandPrince(), each across all the nodes, with the same arithmetic (one call site of
+  // stageRates, so that it stays inlined).
+  const [f1, f2, f3, f4, f5, f6, f7] = w.f;
   for (let stage = 0; stage < 7; stage++) {
-    if (stage > 0) {
-      const row = STAGE_ROWS[stage];
-      for (let i = 0; i < count; i++) sum[i] = row[0] * f1[i];
-      for (let r = 1; r < row.length; r++) {
-        const c = row[r];
-        if (c === 0) continue;
-        const fr = f[r];
-        for (let i = 0; i < count; i++) sum[i] += c * fr[i];
-      }
-      for (let i = 0; i < count; i++) x[i] = a0[i] + h * sum[i];
+    switch (stage) {
+      case 1:
+        for (let i = 0; i < count; i++) x[i] = a0[i] + h * (A21 * f1[i]);
+        break;
+      case 2:
+        for (let i = 0; i < count; i++) x[i] = a0[i] + h * (A31 * f1[i] + A32 * f2[i]);
+        break;
+      case 3:
+        for (let i = 0; i < count; i++) x[i] = a0[i] + h * (A41 * f1[i] + A42 * f2[i] + A43 * f3[i]);
+        break;
+      case 4:
+        for (let i = 0; i < count; i++) x[i] = a0[i] + h * (A51 * f1[i] + A52 * f2[i] + A53 * f3[i] + A54 * f4[i]);
+        break;
+      case 5:
+        for (let i = 0; i < count; i++) x[i] = a0[i] + h * (A61 * f1[i] + A62 * f2[i] + A63 * f3[i] + A64 * f4[i] + A65 * f5[i]);
+        break;
+      case 6: // the 5th-order end value; its rate is the first of the next step (FSAL) and enters the error
+        for (let i = 0; i < count; i++) x[i] = a0[i] + h * (B1 * f1[i] + B3 * f3[i] + B4 * f4[i] + B5 * f5[i] + B6 * f6[i]);
+        break;
+      default:
+        break;
     }
-    stageRates(k, w, count, f[stage]);
+    stageRates(k, w, count, w.f[stage]);
   }
-  if (sensitivity) stageSlopes(k, w, count);
   const lls = k.formCode === LEE_LOOS_SPRINGER;
   for (let i = 0; i < count; i++) {
     const j = nodes[i];
@@ -454,19 +461,34 @@ export function advanceCureBatch(
     const valid = TK[j] > 0 && TK[j] < Infinity && alphaIn[j] >= 0 && alphaIn[j] <= 1;
     if (valid && f1[i] === 0) {
       alphaOut[j] = a; // an equilibrium at this temperature, as in advanceCure
-      if (sensitivity) sensitivity[j] = 0;
+      own[i] = 1;
     } else if (valid && h * f1[i] <= 0.5 * room && err <= k.tolerance * (a + 1e-3) && !(lls && !upper && a5 >= SWITCH_ALPHA)) {
       const next = a5 < ALPHA_MAX ? a5 : ALPHA_MAX;
       alphaOut[j] = next > a ? next : a;
-      if (sensitivity) {
-        // ∂α₁/∂T of the step: with h = ∫ dα/f over [α₀, α₁] held fixed, ∂α₁/∂T = f(α₁)·∫₀ʰ ∂ln f/∂T dt;
-        // the integral by the trapezoidal rule (the slope barely changes over a step of Δα ≤ ~0.005).
-        sensitivity[j] = f7[i] * 0.5 * h * (g0[i] + g1[i]);
-      }
+      own[i] = 1;
     } else {
       alphaOut[j] = advanceCure(k, alphaIn[j], TK[j], dtS);
-      if (sensitivity) sensitivity[j] = Number.NaN; // no cheap slope after sub-steps or the switch
+      own[i] = 0;
     }
+  }
+}
+
+/**
+ * For the nodes of the last advanceCureBatch call (same nodes, count and dtS, nothing run on the batch in
+ * between): slope[j] = ∂alphaOut[j]/∂TK[j] in 1/K, NaN where the node needed advanceCure's sub-steps or the
+ * switch. With h = ∫ dα/f over [α₀, α₁] held fixed, ∂α₁/∂T = f(α₁)·∫₀ʰ ∂ln f/∂T dt; the integral by the
+ * trapezoidal rule between the step's ends (the slope barely changes over a step of Δα ≲ 0.005).
+ */
+export function cureBatchSlopes(k: PreparedKinetics, w: CureBatch, nodes: Int32Array, count: number, dtS: number, slope: Float64Array): void {
+  stageSlopes(k, w, count);
+  const { own, g0, g1 } = w;
+  const f1 = w.f[0];
+  const f7 = w.f[6];
+  for (let i = 0; i < count; i++) {
+    const j = nodes[i];
+    if (!own[i]) slope[j] = Number.NaN;
+    else if (f1[i] === 0) slope[j] = 0;
+    else slope[j] = f7[i] * 0.5 * dtS * (g0[i] + g1[i]);
   }
 }
 

@@ -1,8 +1,8 @@
 import type { StudyParams } from '../schemas/study';
 import { kjPerKgToJPerKg, mmToM } from '../units';
 import { glassTransitionK, prepareGlassTransition, type GlassTransitionK } from './glass-transition';
-import { createHeatColumn, heatStep, storedHeat, transverseConductivity, volumetricHeatCapacity, type BoundaryHeat, type HeatColumn, type HeatLayer } from './heat-transfer';
-import { ALPHA_MAX, advanceCureBatch, createCureBatch, cureRate, initialDegreeOfCure, prepareKinetics, type CureBatch, type PreparedKinetics } from './kinetics';
+import { createHeatColumn, prepareHeatStep, solveHeatStep, storedHeat, transverseConductivity, volumetricHeatCapacity, type BoundaryHeat, type HeatColumn, type HeatLayer } from './heat-transfer';
+import { ALPHA_MAX, advanceCureBatch, cureBatchSlopes, createCureBatch, cureRate, initialDegreeOfCure, prepareKinetics, type CureBatch, type PreparedKinetics } from './kinetics';
 
 // Heat and cure coupled through the reaction heat q = ρ_r (1 − V_f) H_R dα/dt (physics.md §2–§3).
 //
@@ -15,7 +15,7 @@ import { ALPHA_MAX, advanceCureBatch, createCureBatch, cureRate, initialDegreeOf
 // energy: δ(Δα) ≈ Δα·θ·(E_max/RT² + C|α_CT|)·δT), and never before that temperature is within 1 K. A step
 // with no cure to speak of is therefore done after one pass; the first pass starts from Tⁿ⁺¹ extrapolated
 // from the last step, so a reacting step usually needs two. Only the first pass integrates the cure at every
-// node (all nodes at once, kinetics.advanceCureBatch, which also returns each increment's slope ∂α/∂T); later
+// node (all nodes at once, kinetics.advanceCureBatch, which can then give each increment's slope ∂α/∂T); later
 // passes move the temperature by hundredths of a kelvin and carry each increment over along that slope
 // when the neglected second-order part is below 1e-8, integrating again only where it is not. Because the
 // source is exactly the heat of the cure increments used, the energy balance closes to rounding for any
@@ -234,10 +234,14 @@ function tryStep(s: ThermochemicalState, dtS: number, airK: number, toolAirK: nu
   // Arrhenius terms, the diffusion factor's logistic), for the remainder of the linear update below.
   const eMinOverR = Math.min(k.a1 !== 0 ? k.e1OverR : Infinity, k.a2 !== 0 ? k.e2OverR : Infinity, k.a3 !== 0 ? k.e3OverR : Infinity);
   const eSpreadOverR = Number.isFinite(eMinOverR) ? eMaxOverR - eMinOverR : 0;
+  prepareHeatStep(column, TOld, dtS, theta, s.toolAirK, toolAirK, s.airK, airK);
   let passes = 1;
   let converged = false;
+  let count = 0; // nodes of the last full integration, in cureNodes
   for (; passes <= MAX_PASSES; passes++) {
-    let count = 0;
+    // The slopes of the last integration, needed only now that another pass is needed.
+    if (passes > 1 && count > 0) cureBatchSlopes(k, cureBatch, cureNodes, count, dtS, slope);
+    count = 0;
     for (let j = 0; j < nLam; j++) {
       const Tk = (1 - theta) * TOld[off + j] + theta * TGuess[off + j];
       TKin[j] = Tk;
@@ -267,14 +271,14 @@ function tryStep(s: ThermochemicalState, dtS: number, airK: number, toolAirK: nu
       }
       cureNodes[count++] = j;
     }
-    advanceCureBatch(k, alphaOld, TKin, dtS, alphaNew, cureNodes, count, cureBatch, slope);
+    advanceCureBatch(k, alphaOld, TKin, dtS, alphaNew, cureNodes, count, cureBatch);
     for (let i = 0; i < count; i++) {
       const j = cureNodes[i];
       TFull[j] = TKin[j];
       alphaFull[j] = alphaNew[j];
     }
     for (let j = 0; j < nLam; j++) source[off + j] = qPerAlpha * nodeLaminateM[j] * (alphaNew[j] - alphaOld[j]);
-    heatStep(column, TOld, TNew, dtS, theta, s.toolAirK, toolAirK, s.airK, airK, source, heat);
+    solveHeatStep(column, TOld, TNew, source, heat);
     let worstT = 0;
     let worstAlpha = 0;
     for (let i = 0; i < n; i++) {
