@@ -1,5 +1,6 @@
 import { createBrowserRouter, RouterProvider } from 'react-router-dom';
 import { AppShell } from './layout/app-shell';
+import { AccountBar } from '../features/auth/components/account-bar';
 import { HomeRoute } from './routes/home';
 import { NotFoundRoute } from './routes/not-found';
 
@@ -7,11 +8,20 @@ import { NotFoundRoute } from './routes/not-found';
 export const router = createBrowserRouter([
   {
     path: '/',
-    element: <AppShell />,
+    element: <AppShell extraNav={[{ to: '/team', label: 'Team' }]} account={<AccountBar />} />,
     children: [
       { index: true, element: <HomeRoute /> },
       { path: 'compare', lazy: () => import('./routes/compare') },
       { path: 'studies/:studyId', lazy: () => import('./routes/study-workspace') },
+      // Team study library
+      { path: 'sign-in', lazy: () => import('./routes/library/sign-in') },
+      { path: 'team', lazy: () => import('./routes/library/team-picker') },
+      { path: 'teams/:teamId', lazy: () => import('./routes/library/team-home') },
+      { path: 'teams/:teamId/members', lazy: () => import('./routes/library/members') },
+      { path: 'parts/:partId', lazy: () => import('./routes/library/part') },
+      { path: 'studies/:studyId/history', lazy: () => import('./routes/library/study-history') },
+      { path: 'invite/:token', lazy: () => import('./routes/library/accept-invite') },
+      { path: 'dev/mailbox', lazy: () => import('./routes/library/mailbox') },
       { path: '*', element: <NotFoundRoute /> },
     ],
   },

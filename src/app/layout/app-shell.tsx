@@ -1,3 +1,4 @@
+import type { ReactNode } from 'react';
 import { Link, NavLink, Outlet } from 'react-router-dom';
 import { LogoMark } from '../../components/ui/logo-mark';
 import { HealthBadge } from '../../features/health/components/health-badge';
@@ -10,7 +11,7 @@ const navItems: NavItem[] = [
   { to: '/studies/demo', label: 'Reference study' },
 ];
 
-export function AppShell({ extraNav = [] }: { extraNav?: NavItem[] }) {
+export function AppShell({ extraNav = [], account }: { extraNav?: NavItem[]; account?: ReactNode }) {
   return (
     <div className="flex min-h-screen flex-col">
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:bg-paper-raised focus:p-2">
@@ -36,8 +37,9 @@ export function AppShell({ extraNav = [] }: { extraNav?: NavItem[] }) {
               </NavLink>
             ))}
           </nav>
-          <div className="ml-auto">
+          <div className="ml-auto flex items-center gap-4">
             <HealthBadge />
+            {account}
           </div>
         </div>
       </header>

@@ -1,0 +1,36 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { api } from '../../../lib/api-client';
+
+export type Person = { id: number; login: string; name: string } | null;
+export type Baseline = {
+  revisionId: number;
+  studyId: number | null;
+  studyTitle: string | null;
+  number: number | null;
+  summary: { finalCureMin?: number; peakOvershootC?: number; warpageMm?: number; cycleMin?: number } | null;
+  note: string | null;
+  pinnedAt: string | null;
+  pinnedBy: Person;
+};
+export type TeamHome = {
+  team: { id: number; slug: string; name: string; description: string | null };
+  role: 'viewer' | 'engineer' | 'lead' | null;
+  parts: { id: number; partNumber: string; name: string; description: string | null; studyCount: number; baseline: Baseline | null }[];
+  recentStudies: {
+    id: number;
+    title: string;
+    latestRevisionNumber: number;
+    updatedAt: string;
+    forkedFromRevisionId: number | null;
+    owner: Person;
+    part: { id: number; partNumber: string; name: string } | null;
+  }[];
+  recentRevisions: { id: number; studyId: number; studyTitle: string; number: number; message: string; restoredFromNumber: number | null; createdAt: string; author: Person }[];
+};
+
+export const getTeamHome = (teamId: string) => api.get<TeamHome>(`/teams/${encodeURIComponent(teamId)}`);
+
+export const teamHomeQueryOptions = (teamId: string) =>
+  queryOptions({ queryKey: ['teams', 'detail', teamId], queryFn: () => getTeamHome(teamId) });
+
+export const useTeamHome = (teamId: string) => useQuery(teamHomeQueryOptions(teamId));

@@ -1,0 +1,88 @@
+import { Link, useParams } from 'react-router-dom';
+import { useTeamHome } from '../api/get-team-home';
+import { fmtTime, Loading, QueryError } from './query-state';
+
+const pct = (x?: number) => (typeof x === 'number' ? `${(x * 100).toFixed(1)} %` : '—');
+
+export function TeamHomePage() {
+  const { teamId = '' } = useParams();
+  const home = useTeamHome(teamId);
+  if (home.isPending) return <div className="p-6"><Loading what="the team" /></div>;
+  if (home.isError) return <div className="p-6"><QueryError error={home.error} what="the team" /></div>;
+  const { team, role, parts, recentStudies, recentRevisions } = home.data;
+  return (
+    <section className="mx-auto max-w-6xl px-4 py-6">
+      <header className="flex flex-wrap items-baseline gap-3">
+        <h1 className="text-2xl font-semibold">{team.name}</h1>
+        <span className="rounded bg-slate-soft px-2 py-0.5 text-xs">{role ?? 'not a member'}</span>
+        <nav className="ml-auto flex gap-3 text-sm">
+          <Link className="text-slate underline" to={`/teams/${team.id}/members`}>Members{role === 'lead' ? ' & activity' : ''}</Link>
+        </nav>
+      </header>
+      {team.description && <p className="mt-1 text-ink-soft">{team.description}</p>}
+
+      <h2 className="mt-6 text-sm font-semibold uppercase tracking-wide text-ink-soft">Parts and their baselines</h2>
+      {parts.length === 0 ? (
+        <p className="mt-2 text-ink-soft">No parts yet. An engineer or lead can add the first part and start a study on it.</p>
+      ) : (
+        <table className="mt-2 w-full border-collapse text-sm">
+          <thead className="text-left text-ink-faint">
+            <tr><th className="py-1">Part</th><th>Baseline</th><th>Final cure</th><th>Note</th><th className="text-right">Studies</th></tr>
+          </thead>
+          <tbody>
+            {parts.map((p) => (
+              <tr key={p.id} className="border-t border-rule">
+                <td className="py-2"><Link className="text-slate underline" to={`/parts/${p.id}`}>{p.partNumber} · {p.name}</Link></td>
+                <td>
+                  {p.baseline ? (
+                    <Link className="underline" to={`/studies/${p.baseline.studyId}/history`}>{p.baseline.studyTitle} · r{p.baseline.number}</Link>
+                  ) : (
+                    <span className="text-ink-faint">none pinned</span>
+                  )}
+                </td>
+                <td className="num">{pct(p.baseline?.summary?.finalCureMin)}</td>
+                <td className="max-w-xs truncate text-ink-soft" title={p.baseline?.note ?? ''}>{p.baseline?.note ?? ''}</td>
+                <td className="num text-right">{p.studyCount}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      )}
+
+      <div className="mt-8 grid gap-8 md:grid-cols-2">
+        <div>
+          <h2 className="text-sm font-semibold uppercase tracking-wide text-ink-soft">Recent studies</h2>
+          {recentStudies.length === 0 ? (
+            <p className="mt-2 text-ink-soft">No studies yet.</p>
+          ) : (
+            <ul className="mt-2 space-y-1 text-sm">
+              {recentStudies.map((s) => (
+                <li key={s.id}>
+                  <Link className="text-slate underline" to={`/studies/${s.id}/history`}>{s.title}</Link>{' '}
+                  <span className="text-ink-faint">r{s.latestRevisionNumber} · {s.owner?.name} · {s.part?.partNumber}{s.forkedFromRevisionId ? ' · fork' : ''}</span>
+                </li>
+              ))}
+            </ul>
+          )}
+        </div>
+        <div>
+          <h2 className="text-sm font-semibold uppercase tracking-wide text-ink-soft">Who changed what</h2>
+          {recentRevisions.length === 0 ? (
+            <p className="mt-2 text-ink-soft">Nothing saved yet.</p>
+          ) : (
+            <ul className="mt-2 space-y-1 text-sm">
+              {recentRevisions.map((r) => (
+                <li key={r.id}>
+                  <span className="font-medium">{r.author?.name ?? 'someone'}</span> saved{' '}
+                  <Link className="text-slate underline" to={`/studies/${r.studyId}/history`}>{r.studyTitle} r{r.number}</Link>
+                  {r.message && <span className="text-ink-soft"> — {r.message}</span>}
+                  <span className="ml-1 text-ink-faint">{fmtTime(r.createdAt)}</span>
+                </li>
+              ))}
+            </ul>
+          )}
+        </div>
+      </div>
+    </section>
+  );
+}
