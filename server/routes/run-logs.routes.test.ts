@@ -3,7 +3,9 @@ import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { call, resetToDemo, signIn, startHarness, type Harness, type SignedIn } from '../test/harness';
 import { demoRunLogCsv, inspectRunLog, type RunLogRecord } from '../../shared/run-log/index';
 import { parseStudy } from '../../shared/schemas/index';
-import { UploadChunk } from '../models/upload-chunk.model';
+import { UploadChunk, CHUNK_BYTES } from '../models/upload-chunk.model';
+import { readChunks } from '../services/run-logs.service';
+import { unpackSeries } from '../services/run-log-series';
 
 // Run logs through the real HTTP stack and the real MariaDB: inspect, upload (atomic), read, download,
 // and the lead's review decision with its role checks.
@@ -104,6 +106,28 @@ describe('uploading a run log', () => {
     expect(list.body[0]).toMatchObject({ id: res.body.id, findings: { violations: 1, warnings: 0 } });
     const history = await call(viewer, 'get', `/api/parts/${partId}/run-logs`).expect(200);
     expect(history.body[0].id).toBe(res.body.id);
+  });
+
+  it('keeps a file larger than one database chunk intact, and its parsed series with it', async () => {
+    // 220 000 rows at 0.1 s: about 7 MB, so the raw file spans two chunks and the series three
+    const rows = ['Time (s),Air (°C),TC1 (°C),TC2 (°C),Pressure (bar)'];
+    for (let i = 0; i < 220_000; i++) {
+      const t = i * 0.1;
+      const air = Math.min(180, 20 + t / 30);
+      rows.push(`${t.toFixed(1)},${air.toFixed(2)},${(air - 3).toFixed(2)},${(air - 6).toFixed(2)},7.00`);
+    }
+    const csv = rows.join('\n');
+    expect(Buffer.byteLength(csv)).toBeGreaterThan(CHUNK_BYTES);
+    const res = await upload(engineer, csv, inspectRunLog(csv).mapping, 'long.csv').expect(201);
+    expect(res.body.rows).toBe(220_000);
+    expect((await readChunks(res.body.id, 'raw')).toString('utf8')).toBe(csv);
+    expect(await UploadChunk.count({ where: { uploadId: res.body.id, part: 'raw' } })).toBe(Math.ceil(Buffer.byteLength(csv) / CHUNK_BYTES));
+    const series = unpackSeries(await readChunks(res.body.id, 'series'));
+    expect(series.timeS).toHaveLength(220_000);
+    expect(series.timeS[219_999]).toBeCloseTo(21_999.9, 6);
+    // 180 − 6 °C in kelvin, stored as Float32
+    expect(series.channels['part:TC2'][219_999]).toBeCloseTo(174 + 273.15, 3);
+    expect(series.channels.pressure[0]).toBe(7e5);
   });
 
   it('refuses the same file twice for the same study', async () => {
