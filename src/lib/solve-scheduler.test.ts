@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { createSolveScheduler } from './solve-scheduler';
 
 /** A hand-driven frame clock and solver: each solve returns a promise the test settles. */
-function harness(extra: { cancelAfterMs?: number; withCancel?: boolean } = {}) {
+function harness(extra: { cancelAfterMs?: number; withCancel?: boolean; leading?: boolean } = {}) {
   const frames: (() => void)[] = [];
   const calls: { params: number; resolve: (r: string) => void; reject: (e: unknown) => void }[] = [];
   const delivered: { result: string; params: number; tag: number }[] = [];
@@ -19,6 +19,7 @@ function harness(extra: { cancelAfterMs?: number; withCancel?: boolean } = {}) {
     onBusy: (busy) => busyLog.push(busy),
     cancel: extra.withCancel ? () => (cancels += 1) : undefined,
     cancelAfterMs: extra.cancelAfterMs,
+    leading: extra.leading,
     requestFrame: (cb) => frames.push(cb),
     now: () => clock,
     setTimer: (cb) => timers.push(cb),
@@ -130,6 +131,32 @@ describe('solve scheduler', () => {
     h.scheduler.request(3);
     h.flushFrame();
     expect(h.cancels()).toBe(1);
+    expect(h.calls.map((c) => c.params)).toEqual([1, 2]);
+  });
+
+  it('with leading starts an idle request at once, then coalesces the rest of the burst into the next frame', async () => {
+    const h = harness({ leading: true });
+    h.scheduler.request(1);
+    expect(h.calls.map((c) => c.params)).toEqual([1]);
+    h.scheduler.request(2);
+    h.scheduler.request(3);
+    expect(h.calls.map((c) => c.params)).toEqual([1]);
+    h.flushFrame();
+    h.calls[0].resolve('stale');
+    await h.settle();
+    expect(h.delivered).toEqual([]);
+    expect(h.calls.map((c) => c.params)).toEqual([1, 3]);
+  });
+
+  it('with leading still waits for a frame when a solve started less than a frame ago', async () => {
+    const h = harness({ leading: true });
+    h.scheduler.request(1);
+    h.calls[0].resolve('one');
+    await h.settle();
+    h.advance(5);
+    h.scheduler.request(2);
+    expect(h.calls).toHaveLength(1);
+    h.flushFrame();
     expect(h.calls.map((c) => c.params)).toEqual([1, 2]);
   });
 });

@@ -2,7 +2,9 @@
  * Latest-wins scheduling of solves on the worker.
  *
  * - Requests are coalesced to one per animation frame (a drag fires many
- *   pointer events per frame; only the last one matters).
+ *   pointer events per frame; only the last one matters). With `leading`, a
+ *   request that finds the scheduler idle, and no solve started within the
+ *   last frame, starts at once instead of waiting up to a frame.
  * - At most one solve runs at a time. A request made while one is in flight
  *   waits as the single pending request; an even newer one replaces it.
  * - A result is delivered only if no newer request exists by the time it
@@ -25,6 +27,9 @@ export type SolveSchedulerOptions<P, R> = {
   cancel?: () => void;
   busyAfterMs?: number;
   cancelAfterMs?: number;
+  /** start at once when idle (still at most one start per `frameMs`) */
+  leading?: boolean;
+  frameMs?: number;
   requestFrame?: (callback: () => void) => unknown;
   now?: () => number;
   setTimer?: (callback: () => void, ms: number) => unknown;
@@ -54,6 +59,7 @@ export function createSolveScheduler<P, R>(options: SolveSchedulerOptions<P, R>)
   let queued: Job<P> | null = null; // waiting for the next frame
   let pending: Job<P> | null = null; // waiting for the running solve to end
   let running: { job: Job<P>; startedAt: number; replacedCancelled: boolean } | null = null;
+  let lastStartAt = -Infinity;
   let busy = false;
   let busyTimer: unknown = null;
   let disposed = false;
@@ -81,7 +87,8 @@ export function createSolveScheduler<P, R>(options: SolveSchedulerOptions<P, R>)
   }
 
   function start(job: Job<P>, replacedCancelled = false) {
-    running = { job, startedAt: now(), replacedCancelled };
+    lastStartAt = now();
+    running = { job, startedAt: lastStartAt, replacedCancelled };
     armBusyTimer();
     let promise: Promise<R>;
     try {
@@ -131,9 +138,15 @@ export function createSolveScheduler<P, R>(options: SolveSchedulerOptions<P, R>)
     request(params, tag = 0) {
       if (disposed) return;
       latestId += 1;
-      queued = { id: latestId, params, tag };
+      const job = { id: latestId, params, tag };
       // Anything waiting is superseded now, even before the frame fires.
       pending = null;
+      if (options.leading && !running && !frameQueued && now() - lastStartAt >= (options.frameMs ?? 16)) {
+        queued = null;
+        start(job);
+        return;
+      }
+      queued = job;
       if (!frameQueued) {
         frameQueued = true;
         requestFrame(onFrame);

@@ -39,6 +39,8 @@ export function useLiveSolve(): void {
       onError: (error) => resultsStore.getState().setError(messageOf(error)),
       onBusy: (busy) => resultsStore.getState().setBusy(busy),
       cancel: restartSolver,
+      // Pointer events already arrive once per frame: an idle worker starts on the event itself.
+      leading: true,
     });
 
     const consider = (params: StudyParams | null, tag: number) => {
