@@ -130,6 +130,12 @@ describe('uploading a run log', () => {
     expect(series.channels.pressure[0]).toBe(7e5);
   });
 
+  it('reads a UTF-16 export from a Windows logger', async () => {
+    const utf16 = Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from(demoCsv, 'utf16le')]);
+    const res = await upload(engineer, utf16, inspectRunLog(demoCsv).mapping, 'job-utf16.csv').expect(201);
+    expect(res.body.record.spec.findings.map((f: { rule: string }) => f.rule)).toEqual(['spec.hold-long']);
+  });
+
   it('refuses the same file twice for the same study', async () => {
     const mapping = inspectRunLog(demoCsv).mapping;
     const first = await upload(engineer, demoCsv, mapping).expect(201);

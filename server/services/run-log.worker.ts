@@ -6,12 +6,13 @@
 import { parentPort, workerData } from 'node:worker_threads';
 import { analyseRunLog, RunLogParseError, type AnalyseInput } from '../../shared/run-log/index';
 import { packSeries } from './run-log-series';
+import { decodeRunLogBytes } from './run-log-text';
 
 type Input = Omit<AnalyseInput, 'text'> & { bytes: Uint8Array };
 
 try {
   const { bytes, ...rest } = workerData as Input;
-  const text = new TextDecoder('utf-8').decode(bytes);
+  const text = decodeRunLogBytes(bytes) ?? ''; // the service refused non-text files before sending them here
   const { record, log } = analyseRunLog({ ...rest, text, parse: { byteLength: bytes.byteLength } });
   const series = packSeries(log);
   parentPort!.postMessage({ ok: true, record, series }, [series.buffer as ArrayBuffer]);

@@ -7,6 +7,7 @@ import type { ReviewDecision } from '../models/review.model';
 import { UploadChunk, CHUNK_BYTES, type UploadChunkPart } from '../models/upload-chunk.model';
 import { badRequest, conflict, notFound } from '../middleware/http-error';
 import { spawnTsWorker } from './ts-worker';
+import { decodeRunLogBytes } from './run-log-text';
 
 // Run logs in the library: an upload is read, checked and replayed in a worker thread, then stored in one
 // transaction (row, raw file, parsed series, audit event) or not at all. Review decisions are made once by a
@@ -26,10 +27,11 @@ function refusal(e: { line: number | null; column: string | null; reason: string
 
 /** The file's text; binary files are refused before any parsing. */
 export function decodeText(file: UploadedFile): string {
-  if (file.buffer.includes(0)) {
+  const text = decodeRunLogBytes(file.buffer);
+  if (text === null) {
     throw badRequest('The run log was refused: the file is not text (it holds NUL bytes); export the log as CSV', { field: 'file', line: null, column: null, reason: 'not a text file' });
   }
-  return file.buffer.toString('utf8');
+  return text;
 }
 
 export function inspectUpload(file: UploadedFile): RunLogInspection {
