@@ -1,7 +1,7 @@
 /** What the model assumes and what its predictions are for; always on screen in the workspace. */
 export function AssumptionsNote() {
   return (
-    <aside aria-label="Model assumptions and cautions" className="border-t border-rule bg-saffron-soft/40 px-3 py-2 text-xs leading-relaxed text-ink-soft" data-testid="assumptions">
+    <aside id="model-cautions" aria-label="Model assumptions and cautions" className="border-t border-rule bg-saffron-soft/40 px-3 py-2 text-xs leading-relaxed text-ink-soft" data-testid="assumptions">
       <h2 className="mb-1 text-[11px] font-semibold uppercase tracking-[0.08em] text-saffron">Model and cautions</h2>
       <ul className="list-disc space-y-0.5 pl-4">
         <li>

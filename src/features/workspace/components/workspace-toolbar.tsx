@@ -49,6 +49,9 @@ export function WorkspaceToolbar({ offline, canWrite, onReload }: { offline: boo
         >
           {dirty ? '● unsaved changes' : 'saved'}
         </span>
+        <a href="#model-cautions" className="text-xs text-saffron underline decoration-dotted" title="What the model assumes, and what predictions are for">
+          model and cautions
+        </a>
         {issueCount > 0 && (
           <span className="rounded-full bg-fault-soft px-2 py-0.5 text-xs text-fault" role="status" data-testid="invalid-marker">
             {issueCount} {issueCount === 1 ? 'entry needs' : 'entries need'} attention; results show the last valid study
