@@ -44,6 +44,20 @@ test('upload a run log, map its columns, see the long hold flagged, open the rep
   fs.writeFileSync(file, csv);
 
   await engineer.goto(`/studies/${studyId}/run-logs`);
+
+  // A file broken past the rows the mapping step reads: the server refuses it, naming line and column.
+  const brokenRows = ['Time (min),Air (°C),TC1 (°C)'];
+  for (let i = 0; i < 400; i++) brokenRows.push(`${i},${20 + i * 0.4},${i === 298 ? 'OPEN' : 19 + i * 0.4}`);
+  const broken = path.join(path.dirname(file), 'broken.csv');
+  fs.writeFileSync(broken, brokenRows.join('\n'));
+  await engineer.getByLabel('Run log file').setInputFiles(broken);
+  await engineer.getByRole('button', { name: 'Upload and check' }).click();
+  const refusal = engineer.getByTestId('upload-refusal');
+  await expect(refusal).toContainText('"OPEN" is not a number');
+  await expect(refusal).toContainText('Line 300');
+  await expect(refusal).toContainText('Column “TC1 (°C)”');
+  await expect(refusal).toContainText('Nothing was stored');
+
   await engineer.getByLabel('Run log file').setInputFiles(file);
 
   // The mapping step proposes every column; the engineer confirms it and renames one thermocouple.

@@ -78,7 +78,25 @@ async function freshCsrf(): Promise<string> {
   return csrfToken;
 }
 
-/** Sends the file to be read (nothing is stored) and returns the proposed mapping and a preview. */
+const HEAD_BYTES = 1024 * 1024;
+const TAIL_BYTES = 64 * 1024;
+
+/**
+ * Proposes a mapping from the file's first megabyte and its last 64 kB, read in the browser with the same
+ * shared code the server uses, so a 50 MB file is sent once (with the confirmed mapping), not twice.
+ * Throws the same RunLogParseError the server would answer with.
+ */
+export async function inspectRunLogLocally(file: File): Promise<RunLogInspection> {
+  const { inspectRunLog } = await import('../../../../shared/run-log/parse-run-log');
+  if (file.size <= HEAD_BYTES + TAIL_BYTES) return inspectRunLog(await file.text(), { byteLength: file.size });
+  const head = await file.slice(0, HEAD_BYTES).text();
+  const tail = await file.slice(file.size - TAIL_BYTES).text();
+  // whole lines only: the head up to its last line break, the tail from its first
+  const text = `${head.slice(0, head.lastIndexOf('\n'))}\n${tail.slice(tail.indexOf('\n') + 1)}`;
+  return inspectRunLog(text, { byteLength: file.size });
+}
+
+/** Sends the file to be read by the server (nothing is stored) and returns the proposed mapping and a preview. */
 export async function inspectRunLogFile(studyId: string, file: File): Promise<RunLogInspection> {
   await freshCsrf();
   const form = new FormData();

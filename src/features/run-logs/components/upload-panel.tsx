@@ -3,7 +3,8 @@ import { useNavigate } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
 import type { RunLogInspection, RunLogMapping } from '../../../../shared/run-log/index';
 import { MAX_RUN_LOG_BYTES } from '../../../../shared/run-log/limits';
-import { inspectRunLogFile, refusalOf, runLogKeys, uploadRunLog, type Refusal } from '../api/run-logs-api';
+import { inspectRunLogLocally, refusalOf, runLogKeys, uploadRunLog, type Refusal } from '../api/run-logs-api';
+import { RunLogParseError } from '../../../../shared/run-log/run-log-error';
 import { MappingStep, mappingProblems } from './mapping-step';
 
 type Stage =
@@ -31,11 +32,15 @@ export function UploadPanel({ studyId }: { studyId: string }) {
     }
     setStage({ kind: 'inspecting' });
     try {
-      const inspection = await inspectRunLogFile(studyId, f);
+      const inspection = await inspectRunLogLocally(f);
       setStage({ kind: 'mapping', inspection, mapping: inspection.mapping });
     } catch (e) {
       setStage({ kind: 'pick' });
-      setProblem({ message: (e as Error).message, refusal: refusalOf(e) });
+      setProblem(
+        e instanceof RunLogParseError
+          ? { message: `The run log was refused: ${e.message}`, refusal: { error: e.message, line: e.line, column: e.column, reason: e.reason } }
+          : { message: (e as Error).message, refusal: refusalOf(e) },
+      );
     }
   }
 
