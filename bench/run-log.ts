@@ -53,7 +53,7 @@ export async function runRunLogBench(): Promise<Figures> {
   // Replay of a 10-hour log (the demo run stretched: 6.6 h cycle + a long cool, 30 s samples, then 10 h total).
   try {
     const { simulate } = await import('../shared/solver/simulate');
-    const csv = demoRunLogCsv(params, { secondHoldMin: 370, stepS: 10 });
+    const csv = demoRunLogCsv(params, { secondHoldMin: 380, stepS: 10 });
     const demo = parseRunLog(csv, inspectRunLog(csv).mapping);
     const hours = (demo.timeS[demo.rows - 1] - demo.timeS[0]) / 3600;
     const r0 = performance.now();
