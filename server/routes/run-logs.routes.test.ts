@@ -212,6 +212,15 @@ describe('review decisions', () => {
     expect(await h.db.models.AuditEvent.count({ where: { action: 'review.decide' } })).toBe(1);
   });
 
+  it('holds one decision per run in the database itself', async () => {
+    await call(lead, 'post', `/api/run-logs/${runLogId}/review`, decision).expect(201);
+    const { Review, Upload } = h.db.models;
+    const { teamId } = (await Upload.findByPk(runLogId))!;
+    await expect(Review.create({ teamId, uploadId: runLogId, decision: 'scrap', rationale: 'written around the API', decidedBy: null })).rejects.toMatchObject({
+      name: 'SequelizeUniqueConstraintError',
+    });
+  });
+
   it('never changes a decision once made', async () => {
     await call(lead, 'post', `/api/run-logs/${runLogId}/review`, decision).expect(201);
     const again = await call(lead, 'post', `/api/run-logs/${runLogId}/review`, { ...decision, decision: 'scrap' }).expect(409);

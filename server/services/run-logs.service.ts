@@ -269,7 +269,11 @@ export async function decideReview(sequelize: Sequelize, input: DecideInput) {
     const review = await Review.create(
       { teamId: upload.teamId, uploadId: upload.id, decision: input.decision, rationale: input.rationale, decidedBy: input.userId },
       { transaction },
-    );
+    ).catch((err: unknown) => {
+      // the unique index on reviews.upload_id: another decision landed first
+      if ((err as { name?: string }).name === 'SequelizeUniqueConstraintError') throw conflict(`Run log ${upload.id} already has a decision; decisions cannot be changed.`);
+      throw err;
+    });
     await AuditEvent.create(
       {
         teamId: upload.teamId,
