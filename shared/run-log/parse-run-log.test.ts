@@ -85,6 +85,26 @@ describe('parseRunLog: reading good files', () => {
     expect(parseRunLog(text, ins.mapping).rows).toBe(3);
   });
 
+  it('skips a logger preamble above the table and still names physical lines', () => {
+    const text = [
+      'Autoclave 2 record',
+      'Job 4471; operator: night shift',
+      '',
+      'Time (min),Air (°C),TC1 (°C)',
+      '0,20,20',
+      '1,22,21',
+      '2,24,OPEN',
+    ].join('\n');
+    const ins = inspectRunLog(text);
+    expect(ins).toMatchObject({ firstLine: 4, hasHeader: true, headers: ['Time (min)', 'Air (°C)', 'TC1 (°C)'] });
+    expect(ins.previewRows[0]).toEqual(['0', '20', '20']);
+    const e = refusal(text, ins.mapping);
+    expect(e.line).toBe(7);
+    expect(e.column).toBe('TC1 (°C)');
+    const good = text.replace('OPEN', '23');
+    expect(Array.from(parseRunLog(good, inspectRunLog(good).mapping).timeS)).toEqual([0, 60, 120]);
+  });
+
   it('reports progress up to 1', () => {
     const seen: number[] = [];
     parseRunLog(CLEAN, inspectRunLog(CLEAN).mapping, { onProgress: (f) => seen.push(f) });

@@ -21,12 +21,26 @@ import type { RunLog, RunLogChannel } from './types';
 const DELIMITERS = [',', ';', '\t'];
 const DELIMITER_NAMES: Record<string, string> = { ',': 'comma', ';': 'semicolon', '\t': 'tab' };
 const TAIL_CHARS = 16_384;
+/** Most non-blank lines a logger's preamble may take above the table. */
+const PREAMBLE_MAX = 20;
+
+/** The most common field count (ties to the wider), i.e. the table's width. */
+function usualWidth(counts: number[]): number {
+  const tally = new Map<number, number>();
+  for (const c of counts) tally.set(c, (tally.get(c) ?? 0) + 1);
+  let best = 0;
+  let bestCount = 0;
+  for (const [width, n] of tally) if (n > bestCount || (n === bestCount && width > best)) [best, bestCount] = [width, n];
+  return best;
+}
 
 export interface RunLogInspection {
   delimiter: string;
   /** true when numbers use a decimal comma (only with semicolon or tab delimiters) */
   decimalComma: boolean;
   hasHeader: boolean;
+  /** the line (1-based) of the header, or of the first data row when there is none; lines above are preamble */
+  firstLine: number;
   headers: string[];
   /** the first rows as text, for the mapping step's preview table */
   previewRows: string[][];
@@ -77,35 +91,42 @@ export function inspectRunLog(input: string, options: Pick<ParseOptions, 'byteLe
   const text = stripBom(input);
   if (text.trim() === '') throw new RunLogParseError('the file is empty (only blank lines)', { line: 1 });
 
-  let head = Papa.parse<string[]>(text, { preview: INSPECT_ROWS + 1, delimitersToGuess: DELIMITERS, skipEmptyLines: 'greedy' });
+  // Blank lines stay in as rows of one empty field so that row i is line i + 1.
+  const parseHead = (config: Papa.ParseConfig<string[]>) => Papa.parse<string[]>(text, { preview: PREAMBLE_MAX + INSPECT_ROWS + 1, ...config });
+  let head = parseHead({ delimitersToGuess: DELIMITERS });
   if (head.errors.some((e) => e.code === 'UndetectableDelimiter')) {
-    // papaparse guesses from field counts that agree row by row; when a row is broken that guess fails, so
-    // take the delimiter that splits the header into the most fields (the broken row is then named by line).
-    const firstLine = text.slice(0, text.search(/\r?\n|$/));
-    const best = DELIMITERS.map((d) => ({ d, fields: Papa.parse<string[]>(firstLine, { delimiter: d }).data[0]?.length ?? 0 })).sort((a, b) => b.fields - a.fields)[0];
-    if (best.fields >= 2) head = Papa.parse<string[]>(text, { preview: INSPECT_ROWS + 1, delimiter: best.d, skipEmptyLines: 'greedy' });
+    // papaparse guesses from field counts that agree row by row; a preamble or a broken row defeats that
+    // guess, so take the delimiter that splits some early line into the most fields.
+    const widest = (d: string) => Math.max(...Papa.parse<string[]>(text, { delimiter: d, preview: PREAMBLE_MAX + 10 }).data.map((r) => r.length));
+    const best = DELIMITERS.map((d) => ({ d, fields: widest(d) })).sort((a, b) => b.fields - a.fields)[0];
+    if (best.fields >= 2) head = parseHead({ delimiter: best.d });
   }
-  const undetectable = head.errors.some((e) => e.code === 'UndetectableDelimiter');
   const delimiter = head.meta.delimiter;
-  const rows = head.data;
-  if (undetectable || !DELIMITERS.includes(delimiter) || rows[0].length < 2) {
+  const lines = head.data.map((row, i) => ({ row, line: i + 1 })).filter((x) => !isBlankRow(x.row));
+  // The table starts at the first line with the usual field count; lines above it are a logger's preamble
+  // (job number, vessel, operator…), skipped.
+  const width = usualWidth(lines.map((x) => x.row.length));
+  const start = lines.findIndex((x) => x.row.length === width);
+  if (head.errors.some((e) => e.code === 'UndetectableDelimiter') || !DELIMITERS.includes(delimiter) || width < 2 || start < 0 || start > PREAMBLE_MAX) {
     throw new RunLogParseError(
       'found no comma, semicolon or tab between the fields: a run log needs a time column and at least one channel, separated by one of those',
       { line: 1 },
     );
   }
-  if (rows[0].length > MAX_RUN_LOG_COLUMNS) {
-    throw new RunLogParseError(`${rows[0].length} columns: allowed ≤ ${MAX_RUN_LOG_COLUMNS}`, { line: 1 });
+  if (width > MAX_RUN_LOG_COLUMNS) {
+    throw new RunLogParseError(`${width} columns: allowed ≤ ${MAX_RUN_LOG_COLUMNS}`, { line: lines[start].line });
   }
   const quoteError = head.errors.find((e) => e.code === 'MissingQuotes' || e.code === 'InvalidQuotes');
   if (quoteError) throw new RunLogParseError(`broken quoting: ${quoteError.message}`, { line: (quoteError.row ?? 0) + 1 });
 
+  const rows = lines.slice(start).map((x) => x.row);
+  const firstLine = lines[start].line;
   const decimalComma = delimiter !== ',' && rows.slice(0, 20).some((r) => r.some((c) => /^\s*-?\d+,\d+\s*$/.test(c)));
   const first = rows[0];
   const hasHeader = first.some((c) => c.trim() !== '' && !isNumberLike(c, decimalComma) && timestampKind(c) === null);
   const headers = hasHeader ? first.map((h, i) => h.trim() || `Column ${i + 1}`) : first.map((_, i) => `Column ${i + 1}`);
-  const dataRows = hasHeader ? rows.slice(1) : rows;
-  if (dataRows.length === 0) throw new RunLogParseError('no data rows under the header', { line: 2 });
+  const dataRows = (hasHeader ? rows.slice(1) : rows).slice(0, INSPECT_ROWS);
+  if (dataRows.length === 0) throw new RunLogParseError('no data rows under the header', { line: firstLine + 1 });
 
   // The tail shows the end of the run (span of the time column, the cool-down): the part after the first
   // line break is parsed on its own with the same delimiter.
@@ -134,6 +155,7 @@ export function inspectRunLog(input: string, options: Pick<ParseOptions, 'byteLe
     delimiter,
     decimalComma,
     hasHeader,
+    firstLine,
     headers,
     previewRows: dataRows.slice(0, 10),
     proposal,
@@ -194,7 +216,7 @@ export function parseRunLog(input: string, mappingInput: unknown, options: Parse
     throw new RunLogParseError(`column mapping: ${issue.path.length ? `${issue.path.join('.')}: ` : ''}${issue.message}`);
   }
   const mapping = checked.data;
-  const { delimiter, decimalComma, hasHeader, headers } = inspection;
+  const { delimiter, decimalComma, hasHeader, headers, firstLine } = inspection;
   for (const c of mapping.columns) {
     if (c.column >= headers.length) {
       throw new RunLogParseError(`column mapping names column ${c.column + 1}, but the file has ${headers.length} columns`);
@@ -232,7 +254,7 @@ export function parseRunLog(input: string, mappingInput: unknown, options: Parse
       activeParser = parser;
       line++;
       const row = result.data;
-      if (line === 1 && hasHeader) return;
+      if (line < firstLine || (line === firstLine && hasHeader)) return;
       if (isBlankRow(row)) return;
       if (result.errors.length > 0) {
         const quote = result.errors.find((e) => e.code === 'MissingQuotes' || e.code === 'InvalidQuotes');
@@ -295,7 +317,7 @@ export function parseRunLog(input: string, mappingInput: unknown, options: Parse
     },
   });
   if (failure) throw failure;
-  if (time.length === 0) throw new RunLogParseError('no data rows under the header', { line: hasHeader ? 2 : 1 });
+  if (time.length === 0) throw new RunLogParseError('no data rows under the header', { line: hasHeader ? firstLine + 1 : firstLine });
   if (time.length < 2) throw new RunLogParseError('only one data row: a run log needs at least two', { line: line });
   options.onProgress?.(1);
 
