@@ -18,13 +18,18 @@ import { perMinToPerS } from '../units';
 export const GAS_CONSTANT = 8.314;
 /** A pure autocatalytic term α^m never starts from α = 0: it sees at least this seed. */
 export const ALPHA_SEED = 1e-6;
+// The hot paths read module-private copies of the exported constants: an exported binding of an ES module
+// lives in a cell that an optimising compiler does not fold, and `x < LIMIT ? x : LIMIT` with such a binding
+// boxes x into a heap number on every evaluation (V8).
+const SEED = ALPHA_SEED;
 /** α stays below 1 so (1 − α)^n and its derivatives stay finite. */
 export const ALPHA_MAX = 1 - 1e-9;
+const CAP = ALPHA_MAX;
 /** Default tolerance on α per call of advanceCure (absolute near α = 1, relative ×1e-3 near α = 0). */
 export const DEFAULT_CURE_TOLERANCE = 1e-9;
 
-// A module-local copy: an imported binding is re-read through the module record on every use in some
-// runtimes (CommonJS interop wraps it in a getter), and the hot path reads it in every rate evaluation.
+// A module-private copy of an imported constant, for the reason given at SEED (and CommonJS interop wraps
+// an import in a getter).
 const SWITCH_ALPHA = LLS_SWITCH_ALPHA;
 
 const NTH_ORDER = 0;
@@ -170,26 +175,39 @@ function power(x: number, p: number): number {
 // α_C0 + α_CT·T; `upper` selects the Lee–Loos–Springer branch. Never negative (a negative K1 + K2α at low
 // temperature means no reaction, not un-curing), never NaN.
 function rateAt(k: PreparedKinetics, K1: number, K2: number, K3: number, centre: number, alpha: number, upper: boolean): number {
-  let r = chemicalRate(k, K1, K2, K3, alpha, upper);
+  return withDiffusion(k, chemicalRate(k, K1, K2, K3, alpha, upper), centre, alpha);
+}
+
+/** A chemical rate r (any sign) times the diffusion factor at α; 0 unless r > 0. */
+function withDiffusion(k: PreparedKinetics, r: number, centre: number, alpha: number): number {
   if (!(r > 0)) return 0;
   if (k.hasDiffusion) {
     // Below −40 the exponential is under 1e-17 of 1: f_d is 1 to double precision, skip it.
     const x = k.diffusionC * (alpha - centre);
-    if (x > -40) r /= 1 + Math.exp(x);
+    if (x > -40) return r / (1 + Math.exp(x));
   }
   return r;
 }
 
 /** The rate before the diffusion factor (may be ≤ 0 or NaN: rateAt turns that into 0). */
 function chemicalRate(k: PreparedKinetics, K1: number, K2: number, K3: number, alpha: number, upper: boolean): number {
+  if (k.formCode === NTH_ORDER) return nthOrderRate(K1, alpha, k.n);
+  if (k.formCode === KAMAL_SOUROUR) return kamalSourourRate(K1, K2, alpha, k.m, k.n);
+  return leeLoosSpringerRate(K1, K2, K3, alpha, k.b, upper);
+}
+
+function nthOrderRate(K1: number, alpha: number, n: number): number {
+  return K1 * power(alpha < 1 ? 1 - alpha : 0, n);
+}
+
+function kamalSourourRate(K1: number, K2: number, alpha: number, m: number, n: number): number {
+  const seeded = alpha > SEED ? alpha : SEED;
+  return (K1 + K2 * power(seeded, m)) * power(alpha < 1 ? 1 - alpha : 0, n);
+}
+
+function leeLoosSpringerRate(K1: number, K2: number, K3: number, alpha: number, b: number, upper: boolean): number {
   const free = alpha < 1 ? 1 - alpha : 0;
-  if (k.formCode === NTH_ORDER) return K1 * power(free, k.n);
-  if (k.formCode === KAMAL_SOUROUR) {
-    const seeded = alpha > ALPHA_SEED ? alpha : ALPHA_SEED;
-    return (K1 + K2 * power(seeded, k.m)) * power(free, k.n);
-  }
-  if (upper) return K3 * free;
-  return (K1 + K2 * alpha) * free * (k.b - alpha);
+  return upper ? K3 * free : (K1 + K2 * alpha) * free * (b - alpha);
 }
 
 /** A e^(−E/RT), skipping the exponential for a term the form does not use. */
@@ -256,7 +274,7 @@ export function advanceCure(k: PreparedKinetics, alpha: number, TK: number, dtS:
   if (!(dtS >= 0) || !Number.isFinite(dtS)) throw new RangeError(`advanceCure: time step ${String(dtS)} s: allowed ≥ 0 and finite`);
   if (!(TK > 0) || !Number.isFinite(TK)) throw new RangeError(`advanceCure: temperature ${String(TK)} K: allowed > 0 and finite`);
   if (!(alpha >= 0 && alpha <= 1)) throw new RangeError(`advanceCure: degree of cure ${String(alpha)}: allowed 0..1`);
-  let a = alpha < ALPHA_MAX ? alpha : ALPHA_MAX;
+  let a = alpha < CAP ? alpha : CAP;
   if (dtS === 0) return a;
   const K1 = arrhenius(k.a1, k.e1OverR, TK);
   const K2 = arrhenius(k.a2, k.e2OverR, TK);
@@ -286,7 +304,7 @@ export function advanceCure(k: PreparedKinetics, alpha: number, TK: number, dtS:
         upper = true;
         f = rateAt(k, K1, K2, K3, centre, a, true);
       } else {
-        const next = step.alpha < ALPHA_MAX ? step.alpha : ALPHA_MAX;
+        const next = step.alpha < CAP ? step.alpha : CAP;
         if (next > a) a = next;
         f = step.endRate;
         t += h;
@@ -345,29 +363,44 @@ export function createCureBatch(size: number): CureBatch {
   return { size, a: a(), K1: a(), K2: a(), K3: a(), centre: a(), f: [a(), a(), a(), a(), a(), a(), a()], x: a(), T: a(), g0: a(), g1: a(), own: new Uint8Array(size) };
 }
 
-// Rates at x[i] for the listed nodes into out[i]. The loop keeps the rate arithmetic in one optimised
-// function: a call per rate evaluation with floating-point arguments and result costs a heap allocation per
-// number in V8 (doubles cross non-inlined calls boxed), which made the cure integration mostly garbage.
+// The batch works stage by stage over arrays. Its loops call the rate helpers above with plain numbers, which
+// stays cheap only while they are inlined: in V8 a floating-point number crossing a call that is not inlined
+// is boxed (a heap allocation per number). Hence one call site per helper and loop (the form is chosen
+// outside the loop), and module-private constants (see SEED).
+
+// rateAt at x[i] for the listed nodes into out[i].
 function stageRates(k: PreparedKinetics, w: CureBatch, count: number, out: Float64Array): void {
   const { a, K1, K2, K3, centre, x } = w;
-  for (let i = 0; i < count; i++) out[i] = rateAt(k, K1[i], K2[i], K3[i], centre[i], x[i], isUpperBranch(k, a[i]));
+  if (k.formCode === KAMAL_SOUROUR) {
+    const m = k.m;
+    const n = k.n;
+    for (let i = 0; i < count; i++) out[i] = withDiffusion(k, kamalSourourRate(K1[i], K2[i], x[i], m, n), centre[i], x[i]);
+  } else if (k.formCode === NTH_ORDER) {
+    const n = k.n;
+    for (let i = 0; i < count; i++) out[i] = withDiffusion(k, nthOrderRate(K1[i], x[i], n), centre[i], x[i]);
+  } else {
+    const b = k.b;
+    for (let i = 0; i < count; i++) {
+      out[i] = withDiffusion(k, leeLoosSpringerRate(K1[i], K2[i], K3[i], x[i], b, a[i] >= SWITCH_ALPHA), centre[i], x[i]);
+    }
+  }
 }
 
-// The same for the rate constants at each node's temperature (one call site per helper keeps them inlined).
+// The rate constants at each node's temperature.
 function stageConstants(k: PreparedKinetics, w: CureBatch, count: number): void {
   const { T, centre } = w;
   for (let term = 0; term < 3; term++) {
     const out = term === 0 ? w.K1 : term === 1 ? w.K2 : w.K3;
     const a = term === 0 ? k.a1 : term === 1 ? k.a2 : k.a3;
     const eOverR = term === 0 ? k.e1OverR : term === 1 ? k.e2OverR : k.e3OverR;
-    for (let i = 0; i < count; i++) out[i] = arrhenius(a, eOverR, T[i]);
+    // arrhenius(), written out
+    for (let i = 0; i < count; i++) out[i] = a === 0 ? 0 : a * Math.exp(-eOverR / T[i]);
   }
   for (let i = 0; i < count; i++) centre[i] = k.diffusionAlphaC0 + k.diffusionAlphaCTPerK * T[i];
 }
 
-// ...and ∂ln f/∂T at the start (α₀, rate f1) and the end (x, rate f7) of the step, where the rate is > 0:
-// each Arrhenius term contributes its E/RT² weighted by its share of the rate, the diffusion factor
-// C·α_CT·(1 − f_d). (Written out in the loop rather than called per node, for the reason above.)
+// ∂ln f/∂T at the start (α₀, rate f1) and the end (x, rate f7) of the step, where the rate is > 0: each
+// Arrhenius term contributes its E/RT² weighted by its share of the rate, the diffusion factor C·α_CT·(1 − f_d).
 function stageSlopes(k: PreparedKinetics, w: CureBatch, count: number): void {
   const { a, K1, K2, K3, T } = w;
   const diffusionSlope = k.hasDiffusion ? k.diffusionC * k.diffusionAlphaCTPerK : 0;
@@ -377,24 +410,20 @@ function stageSlopes(k: PreparedKinetics, w: CureBatch, count: number): void {
     const out = end === 0 ? w.g0 : w.g1;
     for (let i = 0; i < count; i++) {
       const r = rate[i];
-      if (!(r > 0)) {
-        out[i] = 0;
-        continue;
-      }
       const x = alpha[i];
       const upper = isUpperBranch(k, a[i]);
       let eOverR: number; // rate-weighted E/R
       if (k.formCode === NTH_ORDER) {
         eOverR = k.e1OverR;
-      } else if (k.formCode === KAMAL_SOUROUR || !upper) {
-        const u = K2[i] * (k.formCode === KAMAL_SOUROUR ? power(x > ALPHA_SEED ? x : ALPHA_SEED, k.m) : x);
-        eOverR = (K1[i] * k.e1OverR + u * k.e2OverR) / (K1[i] + u);
-      } else {
+      } else if (upper) {
         eOverR = k.e3OverR;
+      } else {
+        const u = K2[i] * (k.formCode === KAMAL_SOUROUR ? power(x > SEED ? x : SEED, k.m) : x);
+        eOverR = (K1[i] * k.e1OverR + u * k.e2OverR) / (K1[i] + u);
       }
       let g = eOverR / (T[i] * T[i]);
       if (k.hasDiffusion) g += diffusionSlope * (1 - r / chemicalRate(k, K1[i], K2[i], K3[i], x, upper));
-      out[i] = g;
+      out[i] = r > 0 ? g : 0;
     }
   }
 }
@@ -417,7 +446,7 @@ export function advanceCureBatch(
   for (let i = 0; i < count; i++) {
     const j = nodes[i];
     T[i] = TK[j];
-    a0[i] = alphaIn[j] < ALPHA_MAX ? alphaIn[j] : ALPHA_MAX;
+    a0[i] = alphaIn[j] < CAP ? alphaIn[j] : CAP;
     x[i] = a0[i];
   }
   stageConstants(k, w, count);
@@ -463,7 +492,7 @@ export function advanceCureBatch(
       alphaOut[j] = a; // an equilibrium at this temperature, as in advanceCure
       own[i] = 1;
     } else if (valid && h * f1[i] <= 0.5 * room && err <= k.tolerance * (a + 1e-3) && !(lls && !upper && a5 >= SWITCH_ALPHA)) {
-      const next = a5 < ALPHA_MAX ? a5 : ALPHA_MAX;
+      const next = a5 < CAP ? a5 : CAP;
       alphaOut[j] = next > a ? next : a;
       own[i] = 1;
     } else {
@@ -497,5 +526,5 @@ export function cureBatchSlopes(k: PreparedKinetics, w: CureBatch, nodes: Int32A
  * (k1 = 0), which would never leave α = 0 and starts from the seed instead (physics.md §2).
  */
 export function initialDegreeOfCure(k: PreparedKinetics): number {
-  return k.formCode === KAMAL_SOUROUR && k.a1 === 0 ? ALPHA_SEED : 0;
+  return k.formCode === KAMAL_SOUROUR && k.a1 === 0 ? SEED : 0;
 }

@@ -178,6 +178,8 @@ export function createThermochemical(p: ThermochemicalParams, options: Thermoche
   };
 }
 
+/** A module-private copy (a hot loop compares with it; kinetics.ts says why). */
+const CURE_CAP = ALPHA_MAX;
 /** Largest change of a node's cure increment that the coupling passes may leave unresolved. */
 const COUPLING_ALPHA_TOL = 1e-7;
 /** ...and the temperature fed to the cure must be this close to the result whatever the cure. */
@@ -264,7 +266,7 @@ function tryStep(s: ThermochemicalState, dtS: number, airK: number, toolAirK: nu
           const remainder = (dA > 0 ? (0.5 * change * change) / dA : change === 0 ? 0 : Infinity) + 0.5 * kappa * delta * delta * dA;
           if (remainder <= LINEAR_ALPHA_TOL) {
             const a = alphaFull[j] + change;
-            alphaNew[j] = a < alphaOld[j] ? alphaOld[j] : a > ALPHA_MAX ? ALPHA_MAX : a;
+            alphaNew[j] = a < alphaOld[j] ? alphaOld[j] : a > CURE_CAP ? CURE_CAP : a;
             continue;
           }
         }
