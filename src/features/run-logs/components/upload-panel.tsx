@@ -74,6 +74,12 @@ export function UploadPanel({ studyId }: { studyId: string }) {
       {stage.kind === 'mapping' && (
         <>
           <h3 className="mt-4 font-medium">Confirm what each column is</h3>
+          <p className="text-sm text-ink-soft">
+            Fields separated by {stage.inspection.delimiter === '\t' ? 'tabs' : stage.inspection.delimiter === ';' ? 'semicolons' : 'commas'}
+            {stage.inspection.decimalComma ? ', decimal commas' : ''}
+            {stage.inspection.firstLine > 1 ? `; lines 1–${stage.inspection.firstLine - 1} above the table are skipped` : ''}
+            {stage.inspection.hasHeader ? '' : '; no header row, so columns are numbered'}.
+          </p>
           <MappingStep inspection={stage.inspection} mapping={stage.mapping} onChange={(mapping) => setStage({ ...stage, mapping })} />
           <button
             type="button"
