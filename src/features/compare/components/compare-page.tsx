@@ -4,9 +4,9 @@ import { Link } from 'react-router-dom';
 import { metricDeltas } from '../../../../shared/compare/metric-deltas';
 import { paramDiff } from '../../../../shared/compare/param-diff';
 import { CsvDownloadButton } from '../../../components/export/csv-download-button';
-import { RunChartSet } from '../../../components/run-charts/run-chart-set';
-import { RunKey } from '../../../components/run-charts/run-history-chart';
-import { useElementWidth } from '../../../components/run-charts/use-element-width';
+import { RunKey } from '../../../components/charts/chart-figure';
+import { ResultChartSet } from '../../../components/charts/result-chart-set';
+import { useElementWidth } from '../../../hooks/use-element-width';
 import { fileSlug } from '../../../lib/chart-export';
 import { ApiError } from '../../../lib/api-client';
 import { csvMetaOf, demoRevisionChoices, partRevisionChoicesQueryOptions, revisionQueryOptions, signInHref, type RevisionChoice, type RevisionData } from '../../../lib/revision-query';
@@ -234,10 +234,10 @@ function Comparison({ a, b, onChoose }: { a: string; b: string; onChoose: (a: st
         </h2>
         <div ref={chartBox}>
           {solvedA.data && solvedB.data ? (
-            <RunChartSet
+            <ResultChartSet
               runs={[
-                { label: labelA, result: solvedA.data },
-                { label: labelB, result: solvedB.data },
+                { label: labelA, result: solvedA.data, gelPoint: revA.data?.params.resin.gelPoint },
+                { label: labelB, result: solvedB.data, gelPoint: revB.data?.params.resin.gelPoint },
               ]}
               width={width}
               fileBase={`dwellform-compare-${fileSlug(labelA)}-vs-${fileSlug(labelB)}`}

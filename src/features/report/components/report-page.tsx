@@ -8,7 +8,7 @@ import { formatFigure } from '../../../components/comparison/format-figure';
 import { MetricsTable } from '../../../components/comparison/metrics-table';
 import { ParamDiffList } from '../../../components/comparison/param-diff-list';
 import { CsvDownloadButton } from '../../../components/export/csv-download-button';
-import { RunChartSet } from '../../../components/run-charts/run-chart-set';
+import { ResultChartSet } from '../../../components/charts/result-chart-set';
 import { fileSlug } from '../../../lib/chart-export';
 import { ApiError } from '../../../lib/api-client';
 import { csvMetaOf, revisionQueryOptions, signInHref, type RevisionData } from '../../../lib/revision-query';
@@ -238,7 +238,7 @@ export function ReportPage() {
           </Section>
 
           <Section title="Predicted histories and stresses" id="report-charts">
-            <RunChartSet runs={[{ label: rev.label, result }]} width={PRINT_CHART_WIDTH} fileBase={`dwellform-${fileSlug(rev.label)}`} />
+            <ResultChartSet runs={[{ label: rev.label, result, gelPoint: rev.params.resin.gelPoint }]} width={PRINT_CHART_WIDTH} fileBase={`dwellform-${fileSlug(rev.label)}`} />
           </Section>
 
           <Section title="Model assumptions" id="report-assumptions">

@@ -1,9 +1,10 @@
-import { memo, useEffect, useLayoutEffect, useMemo, useRef, useState } from 'react';
+import { memo, useEffect, useLayoutEffect, useMemo, useRef } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
 import { ApiError } from '../../../lib/api-client';
 import { Panel } from '../../../components/ui/panel';
 import { TimeAxisProvider, makeTimeAxis, niceCycleEnd } from '../../../components/charts/time-axis';
+import { useElementWidth } from '../../../hooks/use-element-width';
 import { studyQueryOptions, useStudy, type WorkspaceStudy } from '../api/get-study';
 import { cycleEndMin, cycleSpans } from '../model/cycle-geometry';
 import { useLiveSolve } from '../hooks/use-live-solve';
@@ -17,7 +18,7 @@ import { SegmentTable } from './cycle/segment-table';
 import { HistoryLanes } from './results/history-lanes';
 import { KeyFigures, SolveCounter } from './results/key-figures';
 import { LimitsVerdicts } from './results/limits-verdicts';
-import { PlyStressChart } from './results/ply-stress-chart';
+import { WorkspacePlyStress } from './results/ply-stress-chart';
 import { ScrubControl } from './results/scrub-control';
 import { ThroughThickness } from './results/through-thickness';
 import { WarpView } from './results/warp-view';
@@ -31,26 +32,6 @@ function loadIntoEditor(study: WorkspaceStudy) {
   studyEditorStore
     .getState()
     .load({ studyId: study.id, name: study.title, baseRevision: study.latestRevisionNumber }, study.params);
-}
-
-/** Width of an element, following resizes. */
-function useWidth<T extends HTMLElement>(fallback: number) {
-  const ref = useRef<T>(null);
-  const [width, setWidth] = useState(fallback);
-  useLayoutEffect(() => {
-    const el = ref.current;
-    if (!el) return;
-    const measure = () => {
-      const w = Math.floor(el.getBoundingClientRect().width);
-      if (w > 0) setWidth(w);
-    };
-    measure();
-    if (typeof ResizeObserver === 'undefined') return;
-    const ro = new ResizeObserver(measure);
-    ro.observe(el);
-    return () => ro.disconnect();
-  }, []);
-  return [ref, width] as const;
 }
 
 /** One time axis for the editor and every lane: the longer of the drawn cycle and the solved one, held while dragging. */
@@ -97,7 +78,7 @@ const Lanes = memo(HistoryLanes);
 
 /** The middle column: the cycle editor and the result lanes on one time axis. */
 function TimeColumn() {
-  const [ref, width] = useWidth<HTMLDivElement>(900);
+  const [ref, width] = useElementWidth<HTMLDivElement>(900);
   const axis = useWorkspaceTimeAxis(width);
   return (
     <div ref={ref} className="border-t border-rule">
@@ -162,7 +143,7 @@ function Workspace({ study, onReload }: { study: WorkspaceStudy; onReload: () =>
               <ThroughThickness />
             </Panel>
             <Panel title="Ply stresses after demould">
-              <PlyStressChart />
+              <WorkspacePlyStress />
             </Panel>
             <Panel title="Shape after demould">
               <WarpView />

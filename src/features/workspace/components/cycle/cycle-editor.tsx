@@ -4,6 +4,7 @@ import { scaleLinear, type ScaleLinear } from 'd3-scale';
 import type { StudyParams } from '../../../../../shared/schemas/study';
 import { TimeTicks, ValueTicks, useTimeAxis } from '../../../../components/charts/time-axis';
 import { seriesPath } from '../../../../components/charts/series-path';
+import { ScrubLine } from '../../../../components/charts/scrub-line';
 import { cycleSpans, cycleVertices, type SegmentSpan } from '../../model/cycle-geometry';
 import { handleEdit, handleId, segmentNames, type CycleHandle, type HandleDelta } from '../../model/cycle-handles';
 import { issuesUnder } from '../../model/study-validation';
@@ -204,7 +205,7 @@ export function CycleEditor({
           <SegmentBands spans={spans} x={axis.x} height={plotHeight} />
           {result && <ThermalTraces result={result} x={axis.x} y={y} columns={axis.plotWidth} />}
           <path d={setpointD} fill="none" stroke="var(--color-ink)" strokeWidth={1.6} strokeDasharray="6 3" />
-          <ScrubLine x={axis.x} height={plotHeight} />
+          <StoreScrubLine x={axis.x} height={plotHeight} />
           {spans.map((span) => (
             <SpanHandles
               key={span.index}
@@ -313,21 +314,10 @@ function ThermalLegend() {
   );
 }
 
-export function ScrubLine({ x, height }: { x: ScaleLinear<number, number>; height: number }) {
+/** The scrubbed time through the editor, following the results store without re-rendering the editor. */
+function StoreScrubLine({ x, height }: { x: ScaleLinear<number, number>; height: number }) {
   const scrubMin = useResults((s) => s.scrubMin);
-  return (
-    <line
-      aria-hidden
-      x1={x(scrubMin)}
-      x2={x(scrubMin)}
-      y1={0}
-      y2={height}
-      stroke="var(--color-ink)"
-      strokeWidth={1}
-      opacity={0.55}
-      pointerEvents="none"
-    />
-  );
+  return <ScrubLine x={x} minutes={scrubMin} height={height} />;
 }
 
 type HandleProps = {

@@ -1,0 +1,95 @@
+// @vitest-environment jsdom
+import { describe, expect, it, vi } from 'vitest';
+import { fireEvent, render, screen, within } from '@testing-library/react';
+import type { SimulationResult } from '../../../shared/solver/simulation-result';
+import type { ResultRun } from './history-chart';
+import { peakText, PlyStressChart } from './ply-stress-chart';
+import { CureChart, TemperatureChart } from './result-charts';
+import { CHART_MARGIN, makeTimeAxis } from './time-axis';
+
+// A plot 600 px wide for 600 min: one pixel is one minute.
+const axis = makeTimeAxis([0, 600], 600 + CHART_MARGIN.left + CHART_MARGIN.right);
+
+/** A made-up run: a straight ramp of air and part, cure rising linearly; only what the charts read is filled. */
+function run(label: string, gelTimeMin: number, plyStressMPa: number[]): ResultRun {
+  const n = 301;
+  const f = (g: (i: number) => number) => Float64Array.from({ length: n }, (_, i) => g(i));
+  const history = {
+    timeS: f((i) => i * 120),
+    airK: f((i) => 293 + i * 0.5),
+    midPlaneK: f((i) => 293 + i * 0.45),
+    alphaMin: f((i) => (i / (n - 1)) * 0.9),
+    alphaMax: f((i) => (i / (n - 1)) * 0.95),
+    tgMidK: f((i) => 270 + i * 0.6),
+    resinModulusMidPa: f((i) => i * 1e7),
+  };
+  const z = plyStressMPa.map((_, i) => Math.floor((i + 1) / 2) * 0.25e-3);
+  const stress = Float64Array.from(plyStressMPa, (v) => v * 1e6);
+  const result = {
+    history,
+    summary: { gelTimeMin, vitrificationTimeMin: -1 },
+    plyStresses: { zM: Float64Array.from(z), sigma1Pa: stress, sigma2Pa: stress.map((v) => -v / 2), tau12Pa: new Float64Array(stress.length) },
+  } as unknown as SimulationResult;
+  return { label, result, gelPoint: 0.5 };
+}
+
+describe('result charts', () => {
+  it('draw a single run in full, with no run key and no markers', () => {
+    render(<CureChart runs={[run('only', 120, [1, 2])]} axis={axis} />);
+    const chart = screen.getByTestId('chart-cure');
+    expect(chart.querySelectorAll('[data-run]')).toHaveLength(1);
+    expect(screen.queryAllByTestId('run-legend')).toHaveLength(0);
+    // band, least cured and most cured point
+    expect(chart.querySelectorAll('[data-run="A"] > path, [data-run="A"] > g > path')).toHaveLength(3);
+    expect(screen.getByText('through-thickness spread')).toBeTruthy();
+  });
+
+  it('tell overlaid runs apart by dash and marker, each named in the key', () => {
+    render(<TemperatureChart runs={[run('reference', 100, [1, 2]), run('candidate', 140, [1, 2])]} axis={axis} />);
+    const chart = screen.getByTestId('chart-temperatures');
+    const legend = screen.getAllByTestId('run-legend');
+    expect(legend.map((l) => l.textContent)).toEqual(['A reference', 'B candidate']);
+    const lineOf = (letter: string) => chart.querySelector(`[data-run="${letter}"] > g > path`)!;
+    expect(lineOf('A').getAttribute('stroke-dasharray')).toBeNull();
+    expect(lineOf('B').getAttribute('stroke-dasharray')).toBe('7 4');
+    // markers about every 70 px on a 600 px plot, on each of the two quantities
+    const markersOfB = chart.querySelectorAll('[data-run="B"] > g > path[transform]');
+    expect(markersOfB.length).toBeGreaterThanOrEqual(2 * 7);
+    expect(within(chart).getByRole('img').getAttribute('aria-label')).toBe('Temperatures against time, runs A: reference; B: candidate');
+  });
+
+  it('mark each run’s gelation at its time, and leave out an event that never happened', () => {
+    render(<CureChart runs={[run('reference', 100, [1, 2]), run('candidate', 140, [1, 2])]} axis={axis} />);
+    const chart = screen.getByTestId('chart-cure');
+    expect(chart.textContent).toContain('A gel 100 min');
+    expect(chart.textContent).toContain('B gel 140 min');
+    expect(chart.textContent).not.toContain('vitrified');
+  });
+
+  it('report the minute under the pointer when pressed, and draw the scrub line where told', () => {
+    const onScrub = vi.fn();
+    render(<CureChart runs={[run('only', 120, [1, 2])]} axis={axis} scrubMin={250} onScrub={onScrub} />);
+    const chart = screen.getByTestId('chart-cure');
+    const target = chart.querySelector('rect[style*="col-resize"]')!;
+    // jsdom lays nothing out: the target's left edge is at 0, so clientX is the pixel inside the plot.
+    fireEvent.pointerDown(target, { clientX: 180, buttons: 1, pointerId: 1 });
+    expect(onScrub).toHaveBeenCalledWith(180);
+    const scrubLine = chart.querySelector('line[opacity="0.55"]')!;
+    expect(scrubLine.getAttribute('x1')).toBe('250');
+  });
+});
+
+describe('ply stress chart', () => {
+  it('writes the peak of largest magnitude, never "-0.0"', () => {
+    expect(peakText(Float64Array.from([2e6, -5.25e6, 3e6]))).toBe('-5.3');
+    expect(peakText(Float64Array.from([-0.01e6, 0.02e6]))).toBe('0.0');
+  });
+
+  it('names every component’s peak for each run in its accessible name', () => {
+    render(<PlyStressChart runs={[run('reference', 100, [10, 12, -4, -6]), run('candidate', 140, [8, 9, -3, -5])]} width={600} />);
+    const label = screen.getByTestId('chart-ply-stress').querySelector('svg[role="img"]')!.getAttribute('aria-label')!;
+    expect(label).toContain('σ₁ along fibre peak A 12.0 · B 9.0 MPa');
+    expect(label).toContain('σ₂ across fibre peak A -6.0 · B -4.5 MPa');
+    expect(label).toContain('τ₁₂ in-plane shear peak A 0.0 · B 0.0 MPa');
+  });
+});
