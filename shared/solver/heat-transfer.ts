@@ -51,9 +51,9 @@ export interface HeatColumn {
   readonly upper: Float64Array;
   readonly rhs: Float64Array;
   readonly scratch: Float64Array;
-  /** the step prepared by prepareHeatStep: its right-hand side without the source, and the Thomas pivots */
+  /** the step prepared by prepareHeatStep: its right-hand side without the source, and the Thomas pivots' reciprocals */
   readonly baseRhs: Float64Array;
-  readonly pivot: Float64Array;
+  readonly inversePivot: Float64Array;
   readonly step: PreparedHeatStep;
 }
 
@@ -105,7 +105,7 @@ export function createHeatColumn(layers: readonly HeatLayer[], hBottomWPerM2K: n
   return {
     nodes, zM, capacity, conductance, hBottom: hBottomWPerM2K, hTop: hTopWPerM2K,
     lower: new Float64Array(nodes), diag: new Float64Array(nodes), upper: new Float64Array(nodes),
-    rhs: new Float64Array(nodes), scratch: new Float64Array(nodes), baseRhs: new Float64Array(nodes), pivot: new Float64Array(nodes),
+    rhs: new Float64Array(nodes), scratch: new Float64Array(nodes), baseRhs: new Float64Array(nodes), inversePivot: new Float64Array(nodes),
     step: {
       dtS: Number.NaN, theta: Number.NaN, bottomAirOldK: Number.NaN, bottomAirNewK: Number.NaN, topAirOldK: Number.NaN, topAirNewK: Number.NaN,
       factoredDtS: Number.NaN, factoredTheta: Number.NaN,
@@ -160,7 +160,7 @@ export function prepareHeatStep(
   bottomAirOldK: number, bottomAirNewK: number, topAirOldK: number, topAirNewK: number,
 ): void {
   const n = col.nodes;
-  const { capacity: C, conductance: G, lower, diag, upper, baseRhs, scratch, pivot, step } = col;
+  const { capacity: C, conductance: G, lower, diag, upper, baseRhs, scratch, inversePivot, step } = col;
   const ex = 1 - theta;
   const hb = col.hBottom;
   const ht = col.hTop;
@@ -190,13 +190,14 @@ export function prepareHeatStep(
     baseRhs[i] = r;
   }
   if (refactor) {
-    // Thomas forward elimination of the matrix alone (thomasSolve's order of operations).
-    let beta = diag[0];
-    pivot[0] = beta;
+    // Thomas forward elimination of the matrix alone; the solves then multiply by the reciprocal pivots (the
+    // substitution is a chain from node to node, and a division on the chain costs several multiplications).
+    let inv = 1 / diag[0];
+    inversePivot[0] = inv;
     for (let i = 1; i < n; i++) {
-      scratch[i] = upper[i - 1] / beta;
-      beta = diag[i] - lower[i] * scratch[i];
-      pivot[i] = beta;
+      scratch[i] = upper[i - 1] * inv;
+      inv = 1 / (diag[i] - lower[i] * scratch[i]);
+      inversePivot[i] = inv;
     }
     step.factoredDtS = dtS;
     step.factoredTheta = theta;
@@ -210,17 +211,17 @@ export function prepareHeatStep(
 }
 
 /**
- * Solve the step prepared by prepareHeatStep (same TOld) with the given source: the numbers thomasSolve would
- * give for heatStep's system. Writes the split boundary heat into `heat` and returns the total, J/m².
+ * Solve the step prepared by prepareHeatStep (same TOld) with the given source (Thomas substitutions with the
+ * stored factors). Writes the split boundary heat into `heat` and returns the total, J/m².
  */
 export function solveHeatStep(col: HeatColumn, TOld: Float64Array, TNew: Float64Array, sourceJPerM2: Float64Array | null, heat: BoundaryHeat): number {
   const n = col.nodes;
-  const { lower, rhs, baseRhs, scratch, pivot, step } = col;
+  const { lower, rhs, baseRhs, scratch, inversePivot, step } = col;
   const { dtS, theta } = step;
   if (!(dtS > 0)) throw new Error('solveHeatStep: no step prepared (call prepareHeatStep first)');
   for (let i = 0; i < n; i++) rhs[i] = sourceJPerM2 ? baseRhs[i] + sourceJPerM2[i] / dtS : baseRhs[i];
-  TNew[0] = rhs[0] / pivot[0];
-  for (let i = 1; i < n; i++) TNew[i] = (rhs[i] - lower[i] * TNew[i - 1]) / pivot[i];
+  TNew[0] = rhs[0] * inversePivot[0];
+  for (let i = 1; i < n; i++) TNew[i] = (rhs[i] - lower[i] * TNew[i - 1]) * inversePivot[i];
   for (let i = n - 2; i >= 0; i--) TNew[i] -= scratch[i + 1] * TNew[i + 1];
   // The same θ-weighted face fluxes the scheme used, so the bookkeeping matches the discrete balance.
   const ex = 1 - theta;

@@ -96,6 +96,10 @@ export interface ThermochemicalState {
     cureNodes: Int32Array; cureBatch: CureBatch;
     /** per laminate node: kinetic temperature and result of its last full cure integration, and ∂α/∂T there */
     TFull: Float64Array; alphaFull: Float64Array; slope: Float64Array;
+    /** per laminate node: the bound on ∂ln(Δα)/∂T at its kinetic temperature this pass */
+    sensitivity: Float64Array;
+    /** stored heat of the start field T0, J/m² */
+    storedHeat0: number;
   };
 }
 
@@ -174,6 +178,7 @@ export function createThermochemical(p: ThermochemicalParams, options: Thermoche
       heat: { bottomJPerM2: 0, topJPerM2: 0 }, prevDtS: 0,
       cureNodes: new Int32Array(nLam), cureBatch: createCureBatch(nLam),
       TFull: new Float64Array(nLam), alphaFull: new Float64Array(nLam), slope: new Float64Array(nLam),
+      sensitivity: new Float64Array(nLam), storedHeat0: storedHeat(column, allTK),
     },
   };
 }
@@ -220,7 +225,7 @@ function advanceSplitting(s: ThermochemicalState, dtS: number, airK: number, too
 // One step with Picard passes; commits and returns true when converged, leaves the state untouched otherwise.
 function tryStep(s: ThermochemicalState, dtS: number, airK: number, toolAirK: number): boolean {
   const { column, kinetics: k, theta, alpha, nodeLaminateM, laminateStart: off, allTK } = s;
-  const { TOld, TNew, TGuess, TPrev, source, alphaOld, alphaNew, TKin, heat, cureNodes, cureBatch, TFull, alphaFull, slope } = s.work;
+  const { TOld, TNew, TGuess, TPrev, source, alphaOld, alphaNew, TKin, heat, cureNodes, cureBatch, TFull, alphaFull, slope, sensitivity } = s.work;
   const n = column.nodes;
   const nLam = alpha.length;
   TOld.set(allTK);
@@ -247,6 +252,7 @@ function tryStep(s: ThermochemicalState, dtS: number, airK: number, toolAirK: nu
     for (let j = 0; j < nLam; j++) {
       const Tk = (1 - theta) * TOld[off + j] + theta * TGuess[off + j];
       TKin[j] = Tk;
+      sensitivity[j] = eMaxOverR / (Tk * Tk) + diffusionSens;
       if (passes > 1) {
         // Later passes move the kinetic temperature by little: carry the cure increment of the last full
         // integration over by its slope ∂α/∂T when the neglected second-order part, ½(Sδ)²/Δα for an
@@ -261,7 +267,8 @@ function tryStep(s: ThermochemicalState, dtS: number, airK: number, toolAirK: nu
         }
         if (Number.isFinite(S)) {
           const invT2 = 1 / (Tk * Tk);
-          const kappa = 2 * eMaxOverR * invT2 / Tk + 0.25 * (eSpreadOverR * invT2) ** 2 + 0.25 * diffusionSens * diffusionSens;
+          const spread = eSpreadOverR * invT2;
+          const kappa = (2 * eMaxOverR * invT2) / Tk + 0.25 * spread * spread + 0.25 * diffusionSens * diffusionSens;
           const change = S * delta;
           const remainder = (dA > 0 ? (0.5 * change * change) / dA : change === 0 ? 0 : Infinity) + 0.5 * kappa * delta * delta * dA;
           if (remainder <= LINEAR_ALPHA_TOL) {
@@ -288,8 +295,7 @@ function tryStep(s: ThermochemicalState, dtS: number, airK: number, toolAirK: nu
       if (d > worstT) worstT = d;
       if (i >= off) {
         const j = i - off;
-        const sens = eMaxOverR / (TKin[j] * TKin[j]) + diffusionSens;
-        const da = theta * d * sens * (alphaNew[j] - alphaOld[j]);
+        const da = theta * d * sensitivity[j] * (alphaNew[j] - alphaOld[j]);
         if (da > worstAlpha) worstAlpha = da;
       }
       TGuess[i] = TNew[i];
@@ -333,7 +339,7 @@ function tryStep(s: ThermochemicalState, dtS: number, airK: number, toolAirK: nu
 // balance compares three independently obtained numbers.
 function updateEnergyBalance(s: ThermochemicalState): void {
   const e = s.energy;
-  e.storedChangeJPerM2 = storedHeat(s.column, s.allTK) - storedHeat(s.column, s.work.T0);
+  e.storedChangeJPerM2 = storedHeat(s.column, s.allTK) - s.work.storedHeat0;
   let cured = 0;
   for (let j = 0; j < s.alpha.length; j++) cured += s.nodeLaminateM[j] * (s.alpha[j] - s.work.alpha0[j]);
   e.reactionJPerM2 = s.reactionEnergyJPerM3 * cured;
