@@ -14,7 +14,7 @@ export const STRESS_COMPONENTS: readonly { key: Component; label: string; colour
 ];
 
 const M = { left: 40, right: 6, top: 16, bottom: 48 };
-const GAP = 14;
+const GAP = 22;
 
 /** The value of largest magnitude, in MPa, written so that a tiny negative never reads "-0.0". */
 export function peakText(valuesPa: ArrayLike<number>): string {
@@ -61,6 +61,8 @@ export const PlyStressChart = memo(function PlyStressChart({
     return { x, y };
   }, [runs, stripWidth, ph]);
   const { y } = scales;
+  // The workspace's narrow column: smaller words under each strip so neighbours' labels do not run together.
+  const labelSize = stripWidth < 110 ? 9 : 10;
   const runLabels = runs.map((r) => r.label);
   const letter = (r: number) => (overlaid ? `${RUN_STYLES[r].letter} ` : '');
   const peaks = STRESS_COMPONENTS.map((c) => runs.map((r, i) => `${letter(i)}${peakText(r.result.plyStresses[c.key])}`).join(' · '));
@@ -121,11 +123,11 @@ export const PlyStressChart = memo(function PlyStressChart({
                   {t}
                 </text>
               ))}
-              <text x={stripWidth / 2} y={ph + 26} textAnchor="middle" fontSize={10} fill="var(--color-ink-soft)">
-                {c.label}, MPa
+              <text x={stripWidth / 2} y={ph + 26} textAnchor="middle" fontSize={labelSize} fill="var(--color-ink-soft)">
+                {c.label}
               </text>
-              <text x={stripWidth / 2} y={ph + 39} textAnchor="middle" fontSize={10} className="num" fill="var(--color-ink-soft)">
-                peak {peaks[k]}
+              <text x={stripWidth / 2} y={ph + 39} textAnchor="middle" fontSize={labelSize} className="num" fill="var(--color-ink-soft)">
+                peak {peaks[k]} MPa
               </text>
             </g>
           );

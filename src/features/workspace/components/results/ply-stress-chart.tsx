@@ -3,7 +3,7 @@ import { PlyStressChart } from '../../../../components/charts/ply-stress-chart';
 import { useResults } from '../../stores/results-store';
 
 /** Width of the right-hand column's charts (the column is 22rem less its padding). */
-const WIDTH = 320;
+const WIDTH = 328;
 
 /** Residual ply stresses after demould of the study on screen. */
 export const WorkspacePlyStress = memo(function WorkspacePlyStress() {
