@@ -101,7 +101,7 @@ test('a fork compared with the baseline shows deltas, the flipped limit, a CSV w
   const stranger = await browser.newPage();
   await stranger.goto(shared);
   await expect(stranger.getByRole('alert')).toContainText('Sign in to read revisions');
-  await stranger.getByRole('link', { name: 'Sign in' }).click();
+  await stranger.getByRole('alert').getByRole('link', { name: 'Sign in' }).click();
   await stranger.locator('a[data-login="ines.varga"]').click();
   await expect(stranger).toHaveURL(shared);
   await expect(stranger.locator('[data-limit="maxHeatRateCPerMin"]')).toHaveAttribute('data-flip', 'now-fails');

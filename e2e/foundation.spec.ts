@@ -3,7 +3,7 @@ import { expect, test } from '@playwright/test';
 test('home page shows the product, a live database and a value computed in the solver worker', async ({ page }) => {
   await page.goto('/');
   await expect(page.getByRole('heading', { level: 1, name: 'Dwellform' })).toBeVisible();
-  await expect(page.getByTestId('health')).toContainText('database up');
+  await expect(page.getByRole('main').getByTestId('health')).toContainText('database up');
   // 350 °F = 176.7 °C (exact: (350 − 32) × 5/9 = 176.666…; common practice, no source).
   await expect(page.getByTestId('worker-check')).toContainText('176.7 °C');
 });
