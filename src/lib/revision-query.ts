@@ -10,7 +10,7 @@ import type { CsvMeta } from '../../shared/export/results-csv';
 import { parseStudy, type StudyParams } from '../../shared/schemas/study';
 import { demoStudies } from '../../shared/solver/demo-cards';
 import type { StudySummary } from '../../shared/solver/simulation-result';
-import { api } from './api-client';
+import { api, ApiError } from './api-client';
 
 export type RevisionRef = { source: 'library'; studyId: number; number: number } | { source: 'demo'; index: number };
 
@@ -155,6 +155,17 @@ export function revisionQueryOptions(ref: string) {
     staleTime: 60_000,
   });
 }
+
+/** Why a revision could not be read, in words for whoever opened the link (the compare view and the report). */
+export function revisionErrorText(error: unknown): string {
+  if (error instanceof ApiError && error.status === 401) return 'Sign in to read revisions from the team library.';
+  if (error instanceof ApiError && error.status === 403) return 'You are not a member of the team that owns this study.';
+  if (error instanceof ApiError && error.status === 404) return `Not found: ${error.message}`;
+  return error instanceof Error ? error.message : String(error);
+}
+
+/** The request failed only for want of a session: offer to sign in. */
+export const needsSignIn = (error: unknown): boolean => error instanceof ApiError && error.status === 401;
 
 /** Sign in and come back to this page (a shared link opened before signing in). */
 export function signInHref(): string {

@@ -8,26 +8,18 @@ import { RunKey } from '../../../components/charts/chart-figure';
 import { ResultChartSet } from '../../../components/charts/result-chart-set';
 import { useElementWidth } from '../../../hooks/use-element-width';
 import { fileSlug } from '../../../lib/chart-export';
-import { ApiError } from '../../../lib/api-client';
-import { csvMetaOf, demoRevisionChoices, partRevisionChoicesQueryOptions, revisionQueryOptions, signInHref, type RevisionChoice, type RevisionData } from '../../../lib/revision-query';
+import { csvMetaOf, needsSignIn, revisionErrorText, demoRevisionChoices, partRevisionChoicesQueryOptions, revisionQueryOptions, signInHref, type RevisionChoice, type RevisionData } from '../../../lib/revision-query';
 import { solvedRevisionQueryOptions } from '../../../lib/solve-query';
 import { useComparePair } from '../hooks/use-compare-pair';
 import { MetricsTable } from '../../../components/comparison/metrics-table';
 import { ParamDiffList } from '../../../components/comparison/param-diff-list';
 
-function explain(error: unknown): string {
-  if (error instanceof ApiError && error.status === 401) return 'Sign in to read revisions from the team library.';
-  if (error instanceof ApiError && error.status === 403) return 'You are not a member of the team that owns this study.';
-  if (error instanceof ApiError && error.status === 404) return `Not found: ${error.message}`;
-  return error instanceof Error ? error.message : String(error);
-}
-
 function Problem({ title, error }: { title: string; error: unknown }) {
   return (
     <div role="alert" className="rounded border border-fault bg-fault-soft p-3 text-sm">
       <p className="font-semibold">{title}</p>
-      <p>{explain(error)}</p>
-      {error instanceof ApiError && error.status === 401 && (
+      <p>{revisionErrorText(error)}</p>
+      {needsSignIn(error) && (
         <p className="mt-1">
           <a className="font-medium underline" href={signInHref()}>
             Sign in

@@ -10,8 +10,7 @@ import { ParamDiffList } from '../../../components/comparison/param-diff-list';
 import { CsvDownloadButton } from '../../../components/export/csv-download-button';
 import { ResultChartSet } from '../../../components/charts/result-chart-set';
 import { fileSlug } from '../../../lib/chart-export';
-import { ApiError } from '../../../lib/api-client';
-import { csvMetaOf, revisionQueryOptions, signInHref, type RevisionData } from '../../../lib/revision-query';
+import { csvMetaOf, needsSignIn, revisionErrorText, revisionQueryOptions, signInHref, type RevisionData } from '../../../lib/revision-query';
 import { solvedRevisionQueryOptions } from '../../../lib/solve-query';
 import { ASSUMPTIONS, CAUTIONS, exothermNote } from '../model/report-text';
 import { describeCycleSteps, describeLayup, fibreRows, processRows, resinRows, type Row } from '../model/describe-study';
@@ -66,12 +65,6 @@ function jobSummary(rev: RevisionData, result: SimulationResult): string {
     `(exotherm overshoot ${formatFigure(s.peakOvershootC, '°C')}), warpage ${formatFigure(s.warpageMm, 'mm')} over ` +
     `${p.geometry.stripSpanMm} mm, corner spring-in ${formatFigure(s.springInDeg, '°')}. ${verdict}`
   );
-}
-
-function explain(error: unknown): string {
-  if (error instanceof ApiError && error.status === 401) return 'Sign in to read revisions from the team library.';
-  if (error instanceof ApiError && error.status === 403) return 'You are not a member of the team that owns this study.';
-  return error instanceof Error ? error.message : String(error);
 }
 
 /**
@@ -151,8 +144,8 @@ export function ReportPage() {
 
       {error ? (
         <p role="alert" className="rounded border border-fault bg-fault-soft p-3 text-sm">
-          The report could not be made: {explain(error)}
-          {error instanceof ApiError && error.status === 401 && (
+          The report could not be made: {revisionErrorText(error)}
+          {needsSignIn(error) && (
             <>
               {' '}
               <a className="font-medium underline" href={signInHref()}>
