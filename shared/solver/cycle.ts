@@ -59,6 +59,10 @@ export interface CycleState {
   boundsS: number[];
   /** lagging-part holds whose clock started only because the wait cap ran out */
   waitTimeouts: number[];
+  /** the previous accepted step: time and part extremes (to place a hold's clock start inside the step) */
+  lastTimeS: number;
+  lastMinK: number;
+  lastMaxK: number;
 }
 
 export interface AirConditions {
@@ -128,7 +132,12 @@ export function prepareCycle(cycle: Cycle): CycleProgram {
 }
 
 export function createCycleState(program: CycleProgram): CycleState {
-  const state: CycleState = { index: 0, segmentStartS: 0, clockStartS: -1, done: false, boundsS: [0], waitTimeouts: [] };
+  // The part starts uniform at the starting air temperature.
+  const startK = program.kind === 'record' ? program.airK[0] : program.startK;
+  const state: CycleState = {
+    index: 0, segmentStartS: 0, clockStartS: -1, done: false, boundsS: [0], waitTimeouts: [],
+    lastTimeS: 0, lastMinK: startK, lastMaxK: startK,
+  };
   enterSegment(program, state, 0);
   return state;
 }
@@ -201,10 +210,17 @@ export function nextEventS(program: CycleProgram, state: CycleState): number {
   return state.segmentStartS + seg.durationS;
 }
 
-/** Whether the lagging part point is inside the band of a hold (coldest if heated into it, hottest if cooled). */
+/**
+ * How far the lagging part point is inside the band of a hold, K (≥ 0 inside): the coldest point if the part
+ * was heated into the hold, the hottest if it was cooled into it.
+ */
+export function laggingPartMargin(seg: PreparedSegment, partMinK: number, partMaxK: number): number {
+  if (seg.approach < 0) return seg.toK + seg.bandK - partMaxK;
+  return partMinK - (seg.toK - seg.bandK);
+}
+
 export function laggingPartInBand(seg: PreparedSegment, partMinK: number, partMaxK: number): boolean {
-  if (seg.approach < 0) return partMaxK <= seg.toK + seg.bandK;
-  return partMinK >= seg.toK - seg.bandK;
+  return laggingPartMargin(seg, partMinK, partMaxK) >= 0;
 }
 
 /**
@@ -213,6 +229,14 @@ export function laggingPartInBand(seg: PreparedSegment, partMinK: number, partMa
  * Returns true if a segment boundary was crossed.
  */
 export function advanceCycle(program: CycleProgram, state: CycleState, tS: number, partMinK: number, partMaxK: number): boolean {
+  const crossed = advance(program, state, tS, partMinK, partMaxK);
+  state.lastTimeS = tS;
+  state.lastMinK = partMinK;
+  state.lastMaxK = partMaxK;
+  return crossed;
+}
+
+function advance(program: CycleProgram, state: CycleState, tS: number, partMinK: number, partMaxK: number): boolean {
   if (state.done) return false;
   if (program.kind === 'record') {
     const last = program.timeS.length - 1;
@@ -232,8 +256,14 @@ export function advanceCycle(program: CycleProgram, state: CycleState, tS: numbe
   for (;;) {
     const seg = program.segments[state.index];
     if (seg.kind === 'hold' && state.clockStartS < 0) {
-      if (laggingPartInBand(seg, partMinK, partMaxK)) state.clockStartS = tS;
-      else if (tS >= state.segmentStartS + MAX_LAGGING_WAIT_S - TIME_EPS_S) {
+      const now = laggingPartMargin(seg, partMinK, partMaxK);
+      if (now >= 0) {
+        // Entered the band during this step: place the start where the margin crossed zero (linear in time),
+        // so the schedule moves smoothly with the inputs instead of in whole steps.
+        const before = laggingPartMargin(seg, state.lastMinK, state.lastMaxK);
+        const inStep = state.lastTimeS >= state.segmentStartS && before < 0 && tS > state.lastTimeS;
+        state.clockStartS = inStep ? state.lastTimeS + (before / (before - now)) * (tS - state.lastTimeS) : tS;
+      } else if (tS >= state.segmentStartS + MAX_LAGGING_WAIT_S - TIME_EPS_S) {
         state.clockStartS = tS;
         state.waitTimeouts.push(state.index);
       } else return crossed;
