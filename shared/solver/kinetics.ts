@@ -470,7 +470,7 @@ export function advanceCureBatch(
       case 5:
         for (let i = 0; i < count; i++) x[i] = a0[i] + h * (A61 * f1[i] + A62 * f2[i] + A63 * f3[i] + A64 * f4[i] + A65 * f5[i]);
         break;
-      case 6: // the 5th-order end value; its rate is the first of the next step (FSAL) and enters the error
+      case 6: // the 5th-order end value; its rate enters the error estimate (and the slope)
         for (let i = 0; i < count; i++) x[i] = a0[i] + h * (B1 * f1[i] + B3 * f3[i] + B4 * f4[i] + B5 * f5[i] + B6 * f6[i]);
         break;
       default:
