@@ -1,7 +1,8 @@
 import { Link, useParams } from 'react-router-dom';
 import { usePart } from '../api/get-part';
 import { SummaryFigures } from './summary-figures';
-import { fmtTime, Loading, QueryError } from './query-state';
+import { fmtTime } from '../../../lib/format-time';
+import { Loading, QueryError } from '../../../components/ui/query-state';
 
 export function PartPage() {
   const { partId = '' } = useParams();

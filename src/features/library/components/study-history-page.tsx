@@ -4,7 +4,8 @@ import { useStudyOverview, useStudyRevisions, type RevisionEntry } from '../api/
 import { useForkFromRevision, useRestoreRevision } from '../api/revision-actions';
 import { usePinBaseline } from '../api/pin-baseline';
 import { SummaryFigures } from './summary-figures';
-import { fmtTime, Loading, QueryError } from './query-state';
+import { fmtTime } from '../../../lib/format-time';
+import { Loading, QueryError } from '../../../components/ui/query-state';
 
 function PinForm({ partId, revision, onDone }: { partId: number; revision: RevisionEntry; onDone: () => void }) {
   const [note, setNote] = useState('');

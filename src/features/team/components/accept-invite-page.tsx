@@ -1,7 +1,7 @@
 import { Link, useParams } from 'react-router-dom';
 import { ApiError } from '../../../lib/api-client';
 import { useAcceptInvite, useInvitePreview } from '../api/accept-invite';
-import { QueryError } from './query-state';
+import { QueryError } from '../../../components/ui/query-state';
 
 /** Where the invitation mail's link lands: see the team and role, sign in if needed, accept. */
 export function AcceptInvitePage({ signedIn }: { signedIn: boolean | null }) {

@@ -1,5 +1,6 @@
 import { useMailbox } from '../api/get-mailbox';
-import { fmtTime, Loading, QueryError } from './query-state';
+import { fmtTime } from '../../../lib/format-time';
+import { Loading, QueryError } from '../../../components/ui/query-state';
 
 /** Dev and demo only: the mails the local fake mail server caught. Links in them are clickable. */
 export function MailboxPage() {

@@ -5,7 +5,8 @@ import { useTeamHome } from '../api/get-team-home';
 import { useChangeRole } from '../api/change-role';
 import { useCreateInvite, useInvites, useResendInvite } from '../api/invites';
 import { useAudit } from '../api/get-audit';
-import { fmtTime, Loading, QueryError } from './query-state';
+import { fmtTime } from '../../../lib/format-time';
+import { Loading, QueryError } from '../../../components/ui/query-state';
 
 const ROLES: Member['role'][] = ['viewer', 'engineer', 'lead'];
 

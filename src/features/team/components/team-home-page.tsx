@@ -1,6 +1,7 @@
 import { Link, useParams } from 'react-router-dom';
 import { useTeamHome } from '../api/get-team-home';
-import { fmtTime, Loading, QueryError } from './query-state';
+import { fmtTime } from '../../../lib/format-time';
+import { Loading, QueryError } from '../../../components/ui/query-state';
 
 const pct = (x?: number) => (typeof x === 'number' ? `${(x * 100).toFixed(1)} %` : '—');
 

@@ -1,6 +1,6 @@
 import { Link, Navigate } from 'react-router-dom';
 import { useTeams } from '../api/get-teams';
-import { Loading, QueryError } from './query-state';
+import { Loading, QueryError } from '../../../components/ui/query-state';
 
 /** /team: straight to the only team, or a list when there are several. */
 export function TeamPicker() {

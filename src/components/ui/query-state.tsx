@@ -1,6 +1,6 @@
-import { ApiError } from '../../../lib/api-client';
+import { ApiError } from '../../lib/api-client';
 
-/** What to tell the user when a library request fails, and what they can do about it. */
+/** What to tell the user when a request for team data fails, and what they can do about it. */
 export function QueryError({ error, what }: { error: Error; what: string }) {
   const status = error instanceof ApiError ? error.status : 0;
   const hint =
@@ -22,5 +22,3 @@ export function QueryError({ error, what }: { error: Error; what: string }) {
 }
 
 export const Loading = ({ what }: { what: string }) => <p className="text-sm text-ink-faint">Loading {what}…</p>;
-
-export const fmtTime = (iso: string | null) => (iso ? new Date(iso).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' }) : '—');
