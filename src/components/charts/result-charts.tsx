@@ -1,4 +1,5 @@
 import { memo, useMemo } from 'react';
+import { kToC, paToGpa } from '../../../shared/units';
 import { HistoryChart, type HistoryEvent, type HistoryGuide, type HistorySeries, type ResultRun } from './history-chart';
 import type { TimeAxis } from './time-axis';
 
@@ -7,13 +8,11 @@ import type { TimeAxis } from './time-axis';
  * (with the scrubber), the compare view and the report draw them for one or two runs.
  */
 
-const K0 = 273.15;
-const toC = (k: number) => k - K0;
 const same = (v: number) => v;
 
 export const TEMPERATURE_SERIES: HistorySeries[] = [
-  { label: 'air', colour: 'var(--color-ink-soft)', pick: (h) => h.airK, toDisplay: toC, strokeWidth: 1.1 },
-  { label: 'part mid-plane', colour: 'var(--color-ember)', pick: (h) => h.midPlaneK, toDisplay: toC },
+  { label: 'air', colour: 'var(--color-ink-soft)', pick: (h) => h.airK, toDisplay: kToC, strokeWidth: 1.1 },
+  { label: 'part mid-plane', colour: 'var(--color-ember)', pick: (h) => h.midPlaneK, toDisplay: kToC },
 ];
 export const CURE_SERIES: HistorySeries[] = [
   {
@@ -28,11 +27,11 @@ export const CURE_SERIES: HistorySeries[] = [
   { label: 'most cured point', colour: 'var(--color-verdigris)', pick: (h) => h.alphaMax, toDisplay: same, strokeWidth: 0.8, singleRunOnly: true, unlisted: true },
 ];
 export const TG_SERIES: HistorySeries[] = [
-  { label: 'Tg at mid-plane', colour: 'var(--color-slate)', pick: (h) => h.tgMidK, toDisplay: toC, strokeWidth: 1.8 },
-  { label: 'mid-plane temperature', colour: 'var(--color-fault)', pick: (h) => h.midPlaneK, toDisplay: toC, strokeWidth: 1.2 },
+  { label: 'Tg at mid-plane', colour: 'var(--color-slate)', pick: (h) => h.tgMidK, toDisplay: kToC, strokeWidth: 1.8 },
+  { label: 'mid-plane temperature', colour: 'var(--color-fault)', pick: (h) => h.midPlaneK, toDisplay: kToC, strokeWidth: 1.2 },
 ];
 export const MODULUS_SERIES: HistorySeries[] = [
-  { label: 'mid-plane resin', colour: 'var(--color-ink)', pick: (h) => h.resinModulusMidPa, toDisplay: (pa) => pa / 1e9, strokeWidth: 1.5 },
+  { label: 'mid-plane resin', colour: 'var(--color-ink)', pick: (h) => h.resinModulusMidPa, toDisplay: paToGpa, strokeWidth: 1.5 },
 ];
 
 /** What every result chart over time takes: the runs, the time axis, and optionally the scrubber. */

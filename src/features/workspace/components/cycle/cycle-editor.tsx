@@ -1,4 +1,5 @@
 import { memo, useMemo, useRef, useState, type KeyboardEvent, type PointerEvent as ReactPointerEvent } from 'react';
+import { ZERO_CELSIUS_K } from '../../../../../shared/units';
 import { produce } from 'immer';
 import { scaleLinear, type ScaleLinear } from 'd3-scale';
 import type { StudyParams } from '../../../../../shared/schemas/study';
@@ -12,7 +13,6 @@ import { studyEditorStore, useStudyEditor } from '../../stores/study-editor-stor
 import { resultsStore, useResults } from '../../stores/results-store';
 import type { SimulationResult } from '../../model/simulation-result';
 
-const K0 = 273.15;
 const PLOT_TOP = 14;
 /** Pointer travel before a ramp-end drag decides whether it moves in time (rate) or temperature (target). */
 const AXIS_LOCK_PX = 4;
@@ -81,7 +81,7 @@ export function CycleEditor({
     for (const s of spans) lo = Math.min(lo, s.startC, s.endC);
     if (result) {
       const mid = result.history.midPlaneK;
-      for (let i = 0; i < mid.length; i++) hi = Math.max(hi, mid[i] - K0);
+      for (let i = 0; i < mid.length; i++) hi = Math.max(hi, mid[i] - ZERO_CELSIUS_K);
     }
     const next: [number, number] = [Math.floor(lo / 50) * 50, Math.ceil((hi + 25) / 50) * 50];
     // Hold the scale still under a dragging pointer; only grow it when a handle would leave the plot.
@@ -270,7 +270,7 @@ const ThermalTraces = memo(function ThermalTraces({
 }) {
   const t = result.history.timeS;
   const toX = (s: number) => x(s / 60);
-  const toY = (k: number) => y(k - K0);
+  const toY = (k: number) => y(k - ZERO_CELSIUS_K);
   return (
     <g aria-hidden pointerEvents="none" data-testid="thermal-traces">
       {TRACES.map((tr) => (

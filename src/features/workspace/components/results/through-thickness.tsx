@@ -1,11 +1,11 @@
 import { memo, useMemo } from 'react';
+import { ZERO_CELSIUS_K } from '../../../../../shared/units';
 import { scaleLinear } from 'd3-scale';
 import { line } from 'd3-shape';
 import { indexAtOrBefore } from '../../../../components/charts/series-path';
 import type { SimulationResult } from '../../model/simulation-result';
 import { useResults } from '../../stores/results-store';
 
-const K0 = 273.15;
 const W = 150;
 const H = 170;
 const M = { left: 34, right: 8, top: 8, bottom: 28 };
@@ -19,7 +19,7 @@ export function profileAt(result: SimulationResult, step: number): { temperature
   const zMm = Array.from(z, (v) => v * 1000);
   const row = (a: Float64Array, off: number) => Array.from(a.subarray(step * n, step * n + n), (v) => v + off);
   return {
-    temperatureC: { zMm, values: row(result.profiles.temperatureK, -K0) },
+    temperatureC: { zMm, values: row(result.profiles.temperatureK, -ZERO_CELSIUS_K) },
     alpha: { zMm, values: row(result.profiles.alpha, 0) },
   };
 }
