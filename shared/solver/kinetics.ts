@@ -51,6 +51,9 @@ export interface PreparedKinetics {
   readonly e3OverR: number;
   readonly m: number;
   readonly n: number;
+  /** how x^m and x^n are evaluated (exponentKind), fixed once here */
+  readonly mKind: number;
+  readonly nKind: number;
   readonly b: number;
   readonly hasDiffusion: boolean;
   readonly diffusionC: number;
@@ -145,6 +148,8 @@ export function prepareKinetics(card: KineticsInput, options: { tolerance?: numb
     form,
     formCode,
     ...base,
+    mKind: exponentKind(base.m),
+    nKind: exponentKind(base.n),
     hasDiffusion: d !== undefined,
     diffusionC: d?.c ?? 0,
     diffusionAlphaC0: d?.alphaC0 ?? 0,
@@ -160,15 +165,40 @@ export function diffusionFactor(k: PreparedKinetics, alpha: number, TK: number):
 }
 
 // x^p for x ≥ 0 on the hot path: the exponents of fitted cure laws are often whole or half numbers, which
-// need no transcendental call; otherwise exp(p ln x), markedly cheaper than Math.pow for a general p.
-function power(x: number, p: number): number {
-  if (p === 1) return x;
-  if (p === 2) return x * x;
-  if (p === 0) return 1;
-  if (p === 0.5) return Math.sqrt(x);
-  if (p === 1.5) return x * Math.sqrt(x);
-  if (x <= 0) return 0;
-  return Math.exp(p * Math.log(x));
+// need no transcendental call; otherwise exp(p ln x), markedly cheaper than Math.pow for a general p. The kind
+// of exponent is decided once per card (exponentKind), so a rate evaluation does one dispatch, not a chain of
+// comparisons.
+const POWER_GENERAL = 0;
+const POWER_HALF = 1;
+const POWER_THREE_HALVES = 2;
+const POWER_ONE = 3;
+const POWER_TWO = 4;
+const POWER_ZERO = 5;
+
+function exponentKind(p: number): number {
+  if (p === 0.5) return POWER_HALF;
+  if (p === 1.5) return POWER_THREE_HALVES;
+  if (p === 1) return POWER_ONE;
+  if (p === 2) return POWER_TWO;
+  if (p === 0) return POWER_ZERO;
+  return POWER_GENERAL;
+}
+
+function powerOfKind(x: number, p: number, kind: number): number {
+  switch (kind) {
+    case POWER_HALF:
+      return Math.sqrt(x);
+    case POWER_THREE_HALVES:
+      return x * Math.sqrt(x);
+    case POWER_ONE:
+      return x;
+    case POWER_TWO:
+      return x * x;
+    case POWER_ZERO:
+      return 1;
+    default:
+      return x <= 0 ? 0 : Math.exp(p * Math.log(x));
+  }
 }
 
 // The rate for rate constants already evaluated at the temperature (K1..K3) and the diffusion centre
@@ -191,23 +221,23 @@ function withDiffusion(k: PreparedKinetics, r: number, centre: number, alpha: nu
 
 /** The rate before the diffusion factor (may be ≤ 0 or NaN: rateAt turns that into 0). */
 function chemicalRate(k: PreparedKinetics, K1: number, K2: number, K3: number, alpha: number, upper: boolean): number {
-  if (k.formCode === NTH_ORDER) return nthOrderRate(K1, alpha, k.n);
-  if (k.formCode === KAMAL_SOUROUR) return kamalSourourRate(K1, K2, alpha, k.m, k.n);
-  return leeLoosSpringerRate(K1, K2, K3, alpha, k.b, upper);
+  if (k.formCode === NTH_ORDER) return nthOrderRate(k, K1, alpha);
+  if (k.formCode === KAMAL_SOUROUR) return kamalSourourRate(k, K1, K2, alpha);
+  return leeLoosSpringerRate(k, K1, K2, K3, alpha, upper);
 }
 
-function nthOrderRate(K1: number, alpha: number, n: number): number {
-  return K1 * power(alpha < 1 ? 1 - alpha : 0, n);
+function nthOrderRate(k: PreparedKinetics, K1: number, alpha: number): number {
+  return K1 * powerOfKind(alpha < 1 ? 1 - alpha : 0, k.n, k.nKind);
 }
 
-function kamalSourourRate(K1: number, K2: number, alpha: number, m: number, n: number): number {
+function kamalSourourRate(k: PreparedKinetics, K1: number, K2: number, alpha: number): number {
   const seeded = alpha > SEED ? alpha : SEED;
-  return (K1 + K2 * power(seeded, m)) * power(alpha < 1 ? 1 - alpha : 0, n);
+  return (K1 + K2 * powerOfKind(seeded, k.m, k.mKind)) * powerOfKind(alpha < 1 ? 1 - alpha : 0, k.n, k.nKind);
 }
 
-function leeLoosSpringerRate(K1: number, K2: number, K3: number, alpha: number, b: number, upper: boolean): number {
+function leeLoosSpringerRate(k: PreparedKinetics, K1: number, K2: number, K3: number, alpha: number, upper: boolean): number {
   const free = alpha < 1 ? 1 - alpha : 0;
-  return upper ? K3 * free : (K1 + K2 * alpha) * free * (b - alpha);
+  return upper ? K3 * free : (K1 + K2 * alpha) * free * (k.b - alpha);
 }
 
 /** A e^(−E/RT), skipping the exponential for a term the form does not use. */
@@ -372,16 +402,12 @@ export function createCureBatch(size: number): CureBatch {
 function stageRates(k: PreparedKinetics, w: CureBatch, count: number, out: Float64Array): void {
   const { a, K1, K2, K3, centre, x } = w;
   if (k.formCode === KAMAL_SOUROUR) {
-    const m = k.m;
-    const n = k.n;
-    for (let i = 0; i < count; i++) out[i] = withDiffusion(k, kamalSourourRate(K1[i], K2[i], x[i], m, n), centre[i], x[i]);
+    for (let i = 0; i < count; i++) out[i] = withDiffusion(k, kamalSourourRate(k, K1[i], K2[i], x[i]), centre[i], x[i]);
   } else if (k.formCode === NTH_ORDER) {
-    const n = k.n;
-    for (let i = 0; i < count; i++) out[i] = withDiffusion(k, nthOrderRate(K1[i], x[i], n), centre[i], x[i]);
+    for (let i = 0; i < count; i++) out[i] = withDiffusion(k, nthOrderRate(k, K1[i], x[i]), centre[i], x[i]);
   } else {
-    const b = k.b;
     for (let i = 0; i < count; i++) {
-      out[i] = withDiffusion(k, leeLoosSpringerRate(K1[i], K2[i], K3[i], x[i], b, a[i] >= SWITCH_ALPHA), centre[i], x[i]);
+      out[i] = withDiffusion(k, leeLoosSpringerRate(k, K1[i], K2[i], K3[i], x[i], a[i] >= SWITCH_ALPHA), centre[i], x[i]);
     }
   }
 }
@@ -418,7 +444,7 @@ function stageSlopes(k: PreparedKinetics, w: CureBatch, count: number): void {
       } else if (upper) {
         eOverR = k.e3OverR;
       } else {
-        const u = K2[i] * (k.formCode === KAMAL_SOUROUR ? power(x > SEED ? x : SEED, k.m) : x);
+        const u = K2[i] * (k.formCode === KAMAL_SOUROUR ? powerOfKind(x > SEED ? x : SEED, k.m, k.mKind) : x);
         eOverR = (K1[i] * k.e1OverR + u * k.e2OverR) / (K1[i] + u);
       }
       let g = eOverR / (T[i] * T[i]);
