@@ -17,6 +17,7 @@ import { partRoutes } from './routes/parts.routes';
 import { studyRoutes } from './routes/studies.routes';
 import { inviteRoutes } from './routes/invites.routes';
 import { devRoutes } from './routes/dev.routes';
+import { runLogRoutes } from './routes/run-logs.routes';
 import { closeSummaryPool } from './services/revision-summary.service';
 
 export interface AppDeps {
@@ -86,6 +87,7 @@ export function createApp(deps: AppDeps): DwellformApp {
   api.use(partRoutes(sequelize));
   api.use(studyRoutes(sequelize));
   api.use(inviteRoutes(sequelize));
+  api.use(runLogRoutes(sequelize));
   if (config.mail.fakeMailboxUrl) api.use(devRoutes(config.mail.fakeMailboxUrl));
   for (const router of deps.apiRouters ?? []) api.use(router);
   api.use(apiNotFound);

@@ -22,11 +22,16 @@ export const router = createBrowserRouter([
       { path: 'studies/:studyId/history', lazy: () => import('./routes/library/study-history') },
       { path: 'invite/:token', lazy: () => import('./routes/library/accept-invite') },
       { path: 'dev/mailbox', lazy: () => import('./routes/library/mailbox') },
+      // Run logs and reviews
+      { path: 'studies/:studyId/run-logs', lazy: () => import('./routes/run-logs/study-run-logs') },
+      { path: 'parts/:partId/run-logs', lazy: () => import('./routes/run-logs/part-run-logs') },
+      { path: 'run-logs/:runLogId', lazy: () => import('./routes/run-logs/run-log') },
       { path: '*', element: <NotFoundRoute /> },
     ],
   },
   // The printable report is a document of its own: no app header or footer on paper.
   { path: '/report', lazy: () => import('./routes/report') },
+  { path: '/run-logs/:runLogId/record', lazy: () => import('./routes/run-logs/review-record') },
 ]);
 
 export function AppRouter() {

@@ -3,6 +3,7 @@ import type { Models } from '../../models/index';
 import { DEMO_TEAM, DEMO_USERS, DEMO_SHOP } from './demo-users';
 import { studyParamsSchema, type StudyParams } from '../../../shared/schemas/index';
 import { DEMO_PARTS } from './demo-studies';
+import { seedDemoRunLog } from './demo-run-log';
 import { summarizeStudy } from '../../services/revision-summary.service';
 
 export interface SeedOptions {
@@ -95,6 +96,7 @@ export async function seedDemo(sequelize: Sequelize, models: Models, options: Se
         );
       }
     }
+    await seedDemoRunLog(sequelize, transaction);
     await AuditEvent.create(
       { teamId: team.id, actorId: null, action: 'seed.demo', subjectType: 'team', subjectId: team.id, details: { shop: DEMO_SHOP } },
       { transaction },
