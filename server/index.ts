@@ -36,7 +36,12 @@ function reportListenError(err: NodeJS.ErrnoException) {
 }
 
 async function shutdown() {
-  server.close();
+  // Stop taking requests and drop idle keep-alive sockets before the pool closes.
+  await new Promise<void>((done) => {
+    server.close(() => done());
+    server.closeIdleConnections();
+    setTimeout(done, 2_000).unref();
+  });
   await sequelize.close().catch(() => {});
   process.exit(0);
 }

@@ -17,6 +17,10 @@ export function createSessionMiddleware(config: Config, sequelize: Sequelize) {
     checkExpirationInterval: 15 * 60 * 1000,
     expiration: 7 * 24 * 60 * 60 * 1000,
   });
+  // express-session "touches" an unchanged session on every request, which for
+  // this store is an UPDATE per read. Sessions here expire a fixed 7 days after
+  // sign-in (like the cookie), so the touch is skipped.
+  store.touch = (_sid, _data, callback) => callback?.(null);
   const middleware = session({
     name: 'dwellform.sid',
     secret: config.sessionSecret,
