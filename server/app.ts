@@ -19,6 +19,7 @@ import { inviteRoutes } from './routes/invites.routes';
 import { devRoutes } from './routes/dev.routes';
 import { runLogRoutes } from './routes/run-logs.routes';
 import { closeSummaryPool } from './services/revision-summary.service';
+import { installCacheInvalidation } from './services/read-caches';
 
 export interface AppDeps {
   config: Config;
@@ -65,6 +66,7 @@ export type DwellformApp = Express & { locals: { shutdown: () => Promise<void> }
 export function createApp(deps: AppDeps): DwellformApp {
   const { config, sequelize } = deps;
   initModels(sequelize);
+  installCacheInvalidation();
   const app = express() as DwellformApp;
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');

@@ -8,6 +8,7 @@
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import { forbidden, notFound, unauthorized } from '../middleware/http-error';
 import { Membership, type TeamRole, type User } from '../models/index';
+import { roleCache, roleKey } from '../services/read-caches';
 
 export const ROLE_RANK: Record<TeamRole, number> = { viewer: 1, engineer: 2, lead: 3 };
 
@@ -57,8 +58,10 @@ export const requireAdmin: RequestHandler = (req, _res, next) => {
 };
 
 export async function roleIn(userId: number, teamId: number): Promise<TeamRole | null> {
-  const m = await Membership.findOne({ where: { userId, teamId }, attributes: ['role'] });
-  return m?.role ?? null;
+  return roleCache.getOrLoad(roleKey(userId, teamId), async () => {
+    const m = await Membership.findOne({ where: { userId, teamId }, attributes: ['role'] });
+    return m?.role ?? null;
+  });
 }
 
 /**

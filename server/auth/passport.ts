@@ -2,6 +2,7 @@ import passport from 'passport';
 import { Strategy as GitHubStrategy, type Profile, type StrategyOptions } from 'passport-github2';
 import type { Config } from '../config/index';
 import { User } from '../models/index';
+import { userCache } from '../services/read-caches';
 
 export interface ProviderProfile {
   providerId: string;
@@ -74,7 +75,7 @@ export function configurePassport(config: Config): passport.PassportStatic {
   );
   instance.serializeUser((user, done) => done(null, (user as User).id));
   instance.deserializeUser((id: number, done) => {
-    User.findByPk(id).then((user) => done(null, user ?? false), done);
+    userCache.getOrLoad(id, () => User.findByPk(id)).then((user) => done(null, user ?? false), done);
   });
   return instance;
 }

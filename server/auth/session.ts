@@ -3,6 +3,8 @@ import connectSessionSequelize from 'connect-session-sequelize';
 import type { Sequelize } from 'sequelize';
 import type { Config } from '../config/index';
 
+import { ttlCache } from '../services/ttl-cache';
+
 const SequelizeStore = connectSessionSequelize(session.Store);
 
 /**
@@ -10,6 +12,37 @@ const SequelizeStore = connectSessionSequelize(session.Store);
  * synced). The cookie is HttpOnly and SameSite=Lax (the OAuth callback is a
  * top-level GET navigation), Secure when the public URL is https.
  */
+/**
+ * Reads of a session within a few seconds of the last one come from memory
+ * (as JSON, parsed per request, so no two requests share objects); every
+ * write or destroy through this store replaces or drops the entry.
+ */
+function cacheSessionReads(store: InstanceType<typeof SequelizeStore>) {
+  const cache = ttlCache<string, string>(5_000);
+  const get = store.get.bind(store);
+  const set = store.set.bind(store);
+  const destroy = store.destroy.bind(store);
+  store.get = (sid, callback) => {
+    const hit = cache.get(sid);
+    if (hit !== undefined) return callback(null, JSON.parse(hit));
+    get(sid, (err, data) => {
+      if (!err && data) cache.set(sid, JSON.stringify(data));
+      callback(err, data);
+    });
+  };
+  store.set = (sid, data, callback) => {
+    cache.set(sid, JSON.stringify(data));
+    set(sid, data, (err?: unknown) => {
+      if (err) cache.delete(sid);
+      callback?.(err);
+    });
+  };
+  store.destroy = (sid, callback) => {
+    cache.delete(sid);
+    destroy(sid, callback);
+  };
+}
+
 export function createSessionMiddleware(config: Config, sequelize: Sequelize) {
   const store = new SequelizeStore({
     db: sequelize,
@@ -21,6 +54,7 @@ export function createSessionMiddleware(config: Config, sequelize: Sequelize) {
   // this store is an UPDATE per read. Sessions here expire a fixed 7 days after
   // sign-in (like the cookie), so the touch is skipped.
   store.touch = (_sid, _data, callback) => callback?.(null);
+  cacheSessionReads(store);
   const middleware = session({
     name: 'dwellform.sid',
     secret: config.sessionSecret,

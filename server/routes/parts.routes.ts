@@ -7,11 +7,12 @@ import { recordAudit } from '../services/audit.service';
 import { createStudy } from '../services/study.service';
 import { baselineView } from './teams.routes';
 import { createStudyBody, idParam, pinBaselineBody } from './request-schemas';
+import { cachedTeamOf, partTeamCache } from '../services/read-caches';
 
 export const teamOfPart = async (req: Request) => {
   const id = idParam(req.params.partId);
-  const part = id ? await Part.findByPk(id, { attributes: ['teamId'] }) : null;
-  return part?.teamId ?? null;
+  if (!id) return null;
+  return cachedTeamOf(partTeamCache, id, async () => (await Part.findByPk(id, { attributes: ['teamId'] }))?.teamId ?? null);
 };
 
 export function partRoutes(sequelize: Sequelize): Router {

@@ -119,6 +119,29 @@ describe('saving revisions', () => {
   });
 });
 
+describe('role changes', () => {
+  it('take effect on the very next request, cached reads included', async () => {
+    const study = await call(engineer, 'get', `/api/studies/${studyId}`).expect(200);
+    expect(study.body.role).toBe('engineer');
+    const teamId = study.body.teamId;
+    const engineerId = engineer.userId!;
+    await call(lead, 'patch', `/api/teams/${teamId}/members/${engineerId}`, { role: 'viewer' }).expect(200);
+    const after = await call(engineer, 'get', `/api/studies/${studyId}`).expect(200);
+    expect(after.body.role).toBe('viewer');
+    await call(engineer, 'post', `/api/studies/${studyId}/revisions`, { baseRevision: 2, message: 'no longer allowed', params: referenceStudy() }).expect(403);
+    await call(lead, 'delete', `/api/teams/${teamId}/members/${engineerId}`).expect(204);
+    await call(engineer, 'get', `/api/studies/${studyId}`).expect(404);
+  });
+
+  it('a save shows in the study read at once', async () => {
+    await call(viewer, 'get', `/api/studies/${studyId}`).expect(200);
+    await call(engineer, 'post', `/api/studies/${studyId}/revisions`, { baseRevision: 2, message: 'fresh', params: withFirstHold(66) }).expect(201);
+    const read = await call(viewer, 'get', `/api/studies/${studyId}`).expect(200);
+    expect(read.body.latestRevisionNumber).toBe(3);
+    expect(read.body.latest.params.cycle.segments[1].holdMin).toBe(66);
+  });
+});
+
 describe('forks', () => {
   it('copies a colleague\'s revision into a study of the engineer\'s own that shows its origin', async () => {
     const res = await call(engineer, 'post', `/api/studies/${studyId}/revisions/2/fork`, { title: 'My take on the two-dwell cycle' }).expect(201);

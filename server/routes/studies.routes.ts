@@ -6,11 +6,12 @@ import { badRequest, forbidden, notFound } from '../middleware/http-error';
 import type { StudyParams } from '../../shared/schemas/index';
 import { createStudy, revisionView, saveRevision, studyDetail } from '../services/study.service';
 import { forkBody, idParam, restoreBody, saveRevisionBody } from './request-schemas';
+import { cachedTeamOf, studyDetailCache, studyTeamCache } from '../services/read-caches';
 
 const teamOfStudy = async (req: Request) => {
   const id = idParam(req.params.studyId);
-  const study = id ? await Study.findByPk(id, { attributes: ['teamId'] }) : null;
-  return study?.teamId ?? null;
+  if (!id) return null;
+  return cachedTeamOf(studyTeamCache, id, async () => (await Study.findByPk(id, { attributes: ['teamId'] }))?.teamId ?? null);
 };
 
 async function findRevision(req: Request) {
@@ -27,7 +28,9 @@ export function studyRoutes(sequelize: Sequelize): Router {
   const canWrite = requireTeamRole('write', teamOfStudy);
 
   router.get('/studies/:studyId', canRead, async (req, res) => {
-    res.json({ ...(await studyDetail(idParam(req.params.studyId)!)), role: req.teamAccess!.role });
+    const id = idParam(req.params.studyId)!;
+    const detail = await studyDetailCache.getOrLoad(id, () => studyDetail(id));
+    res.json({ ...(detail as object), role: req.teamAccess!.role });
   });
 
   router.get('/studies/:studyId/revisions', canRead, async (req, res) => {

@@ -12,6 +12,7 @@ import { openTestDb, truncateAll, type TestDb } from './test-db';
 import { seedDemo } from '../db/seed/seed';
 import type { Mailer } from '../mail/mailer';
 import { summarizeStudy } from '../services/revision-summary.service';
+import { clearReadCaches } from '../services/read-caches';
 import type { StudyParams } from '../../shared/schemas/index';
 
 export type Agent = ReturnType<typeof request.agent>;
@@ -61,6 +62,7 @@ const cachedSummary = (params: StudyParams) => {
 /** Empties the test database and inserts the demo scenario. */
 export async function resetToDemo(db: TestDb) {
   await truncateAll(db.sequelize);
+  clearReadCaches();
   await seedDemo(db.sequelize, db.models, { summarize: cachedSummary });
 }
 
