@@ -16,6 +16,7 @@ const benches: Bench[] = [
   { name: 'solver (reference study, scaling)', file: 'solver.ts', exportName: 'runSolverBench' },
   { name: 'viscoelastic recursion vs hereditary integral', file: 'viscoelastic.ts', exportName: 'runViscoelasticBench' },
   { name: 'run-log parse, check and replay', file: 'run-log.ts', exportName: 'runRunLogBench' },
+  { name: 'API reads and saves under load (real MariaDB)', file: 'api.ts', exportName: 'runApiBench' },
 ];
 
 async function main(): Promise<void> {

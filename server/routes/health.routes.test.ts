@@ -11,7 +11,11 @@ import { openTestDb, type TestDb } from '../test/test-db';
  * instance through the same script (own data dir and port), stops it, and
  * starts it again.
  */
-const SECOND = { DB_DATA_DIR: path.resolve('.data/mariadb-health-test'), DB_PORT: '3317' };
+const SECOND = {
+  DB_DATA_DIR: path.resolve('.data/mariadb-health-test'),
+  // Beside the shared instance's port, so two checkouts with their own DB_PORT never collide.
+  DB_PORT: String(Number(process.env.DB_PORT ?? 3307) + 10),
+};
 const dbScript = (command: 'start' | 'stop') =>
   execFileSync('bash', ['tools/dev/db.sh', command], { env: { ...process.env, ...SECOND }, stdio: 'pipe' }).toString();
 
