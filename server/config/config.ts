@@ -1,3 +1,4 @@
+import { readFileSync } from 'node:fs';
 import { z } from 'zod';
 
 /**
@@ -71,7 +72,10 @@ export interface Config {
   authRateLimit: number;
 }
 
-export const APP_VERSION = '0.1.0';
+// The version has one home, package.json; npm and tsx run from the project root.
+export const APP_VERSION: string = (
+  JSON.parse(readFileSync(new URL('../../package.json', import.meta.url), 'utf8')) as { version: string }
+).version;
 
 export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
   const parsed = envSchema.safeParse(source);

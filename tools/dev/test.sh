@@ -7,6 +7,10 @@ cd "$(dirname "$0")/../.."
 bash tools/dev/db.sh start
 bash tools/dev/ensure-chromium.sh
 
+echo "== type check and lint =="
+npm run --silent typecheck
+npm run --silent lint
+
 echo "== unit and integration tests (Vitest) =="
 npx vitest run
 
