@@ -29,12 +29,12 @@ describe('paramDiff', () => {
   it('names a lengthened dwell by segment number, field, both values, the difference and the unit', () => {
     const b = edit((p) => {
       const hold = segments(p)[1];
-      if (hold.kind === 'hold') hold.holdMin = 90;
+      if (hold.kind === 'hold') hold.holdMin = 120;
     });
     const changes = paramDiff(referenceStudy(), b);
     expect(changes).toHaveLength(1);
     expect(changes[0]).toMatchObject({ area: 'cycle', kind: 'changed', path: 'cycle.segments.1.holdMin' });
-    expect(changes[0].text).toBe('Cycle segment 2 (hold): hold time 60 min → 90 min (+30 min)');
+    expect(changes[0].text).toBe('Cycle segment 2 (hold): hold time 90 min → 120 min (+30 min)');
   });
 
   it('names a slower ramp with a negative difference in °C/min', () => {
@@ -69,13 +69,13 @@ describe('paramDiff', () => {
   it('reports a removed segment with what it was', () => {
     const b = edit((p) => {
       segments(p).splice(0, 2); // drop the first ramp and the intermediate dwell
-      segments(p)[0] = { kind: 'ramp', rateCPerMin: 2, targetC: 180, pressureBar: 7 };
+      segments(p)[0] = { kind: 'ramp', rateCPerMin: 1.5, targetC: 180, pressureBar: 7 };
     });
     const changes = paramDiff(referenceStudy(), b);
     expect(changes.map((c) => c.kind).sort()).toEqual(['removed', 'removed']);
     expect(texts(changes)).toContain('Cycle segment 1 removed (was ramp at 2 °C/min to 120 °C, 7 bar)');
     expect(texts(changes)).toContain(
-      'Cycle segment 2 removed (was hold 60 min, 7 bar, clock starts when the lagging part point is within ±5 °C)',
+      'Cycle segment 2 removed (was hold 90 min, 7 bar, clock starts when the lagging part point is within ±5 °C)',
     );
   });
 
@@ -84,7 +84,7 @@ describe('paramDiff', () => {
       segments(p)[1] = { kind: 'ramp', rateCPerMin: 1, targetC: 130, pressureBar: 7 };
     });
     expect(texts(paramDiff(referenceStudy(), b))).toEqual([
-      'Cycle segment 2 replaced: hold 60 min, 7 bar, clock starts when the lagging part point is within ±5 °C → ramp at 1 °C/min to 130 °C, 7 bar',
+      'Cycle segment 2 replaced: hold 90 min, 7 bar, clock starts when the lagging part point is within ±5 °C → ramp at 1 °C/min to 130 °C, 7 bar',
     ]);
   });
 
@@ -103,10 +103,10 @@ describe('paramDiff', () => {
     });
     expect(texts(paramDiff(referenceStudy(), b))).toEqual([
       'Cycle segment 1 removed (was ramp at 2 °C/min to 120 °C, 7 bar)',
-      'Cycle segment 2 removed (was hold 60 min, 7 bar, clock starts when the lagging part point is within ±5 °C)',
-      'Cycle segment 1 (ramp, segment 3 before): rate 2 °C/min → 5 °C/min (+3 °C/min)',
+      'Cycle segment 2 removed (was hold 90 min, 7 bar, clock starts when the lagging part point is within ±5 °C)',
+      'Cycle segment 1 (ramp, segment 3 before): rate 1.5 °C/min → 5 °C/min (+3.5 °C/min)',
       'Cycle segment 2 (hold, segment 4 before): hold clock starts when the lagging part point is in band → at once',
-      'Cycle segment 3 (cool, segment 5 before): rate 3 °C/min → 5 °C/min (+2 °C/min)',
+      'Cycle segment 3 (cool, segment 5 before): rate 2 °C/min → 5 °C/min (+3 °C/min)',
     ]);
   });
 
@@ -267,13 +267,13 @@ describe('paramDiff', () => {
   it('names process limit changes', () => {
     const b = edit((p) => {
       p.limits.maxOvershootC = 8;
-      p.limits.maxCycleMin = 400;
+      p.limits.maxCycleMin = 460;
       p.limits.minFinalCure = 0.92;
     });
     expect(texts(paramDiff(referenceStudy(), b))).toEqual([
       'Minimum final degree of cure 0.9 → 0.92 (+0.02)',
       'Maximum exotherm overshoot 10 °C → 8 °C (−2 °C)',
-      'Maximum cycle time 420 min → 400 min (−20 min)',
+      'Maximum cycle time 480 min → 460 min (−20 min)',
     ]);
   });
 

@@ -72,7 +72,7 @@ const rulesOf = (report: ReturnType<typeof checkSpec>) => report.findings.map((f
 describe('holdsOf', () => {
   it('lists each hold with its temperature and where the air goes next', () => {
     expect(holdsOf(referenceStudy())).toEqual([
-      { targetC: 120, bandC: 5, holdMin: 60, next: 'up', from: 'below' },
+      { targetC: 120, bandC: 5, holdMin: 90, next: 'up', from: 'below' },
       { targetC: 180, bandC: 5, holdMin: 120, next: 'down', from: 'below' },
     ]);
   });

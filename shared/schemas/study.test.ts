@@ -109,11 +109,11 @@ describe('study schema', () => {
       s.cycle.segments[3].holdMin = 10_000;
       s.cycle.segments[1].holdMin = 10_100;
     });
-    // 50 + 10100 + 30 + 10000 + 40 min (closed form of the schedule)
-    expect(issueAt(issues, 'cycle.segments').message).toBe('the schedule lasts 20220 min: allowed ≤ 20160 min (14 days)');
+    // 50 + 10100 + 40 + 10000 + 60 min (closed form of the schedule)
+    expect(issueAt(issues, 'cycle.segments').message).toBe('the schedule lasts 20250 min: allowed ≤ 20160 min (14 days)');
     const s = structuredClone(referenceStudy()) as any;
     s.cycle.segments[1].holdMin = 10_000;
-    s.cycle.segments[3].holdMin = 10_000; // 20120 min: accepted
+    s.cycle.segments[3].holdMin = 10_000; // 50 + 10000 + 40 + 10000 + 60 = 20150 min: accepted
     expect(validateStudy(s).ok).toBe(true);
   });
 

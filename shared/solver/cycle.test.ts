@@ -33,20 +33,20 @@ const twoDwell = {
   startC: 20,
   segments: [
     { kind: 'ramp', rateCPerMin: 2, targetC: 120, pressureBar: 7 },
-    { kind: 'hold', holdMin: 60, pressureBar: 7, start: 'clock', bandC: 5 },
-    { kind: 'ramp', rateCPerMin: 2, targetC: 180, pressureBar: 7 },
+    { kind: 'hold', holdMin: 90, pressureBar: 7, start: 'clock', bandC: 5 },
+    { kind: 'ramp', rateCPerMin: 1.5, targetC: 180, pressureBar: 7 },
     { kind: 'hold', holdMin: 120, pressureBar: 7, start: 'clock', bandC: 5 },
-    { kind: 'cool', rateCPerMin: 3, targetC: 60, pressureBar: 3 },
+    { kind: 'cool', rateCPerMin: 2, targetC: 60, pressureBar: 3 },
   ],
 };
 
 describe('cycle state machine', () => {
   it('gives the closed-form segment times of a ramp/hold/ramp/hold/cool schedule', () => {
-    // Closed form: (120−20)/2 = 50 min; +60 = 110; +(180−120)/2 = 140; +120 = 260; +(180−60)/3 = 300 min.
+    // Closed form: (120−20)/2 = 50 min; +90 = 140; +(180−120)/1.5 = 180; +120 = 300; +(180−60)/2 = 360 min.
     const program = prepareCycle(cycleOf(twoDwell));
-    expect(scheduledDurationS(program)).toBeCloseTo(300 * 60, 9);
+    expect(scheduledDurationS(program)).toBeCloseTo(360 * 60, 9);
     const { state } = run(program, 60);
-    expect(state.boundsS.map((s) => s / 60)).toEqual([0, 50, 110, 140, 260, 300].map((m) => expect.closeTo(m, 9)));
+    expect(state.boundsS.map((s) => s / 60)).toEqual([0, 50, 140, 180, 300, 360].map((m) => expect.closeTo(m, 9)));
     expect(state.done).toBe(true);
   });
 
@@ -61,7 +61,7 @@ describe('cycle state machine', () => {
     advanceCycle(program, state, 50 * 60, 0, 1e9);
     expect(state.index).toBe(1);
     expect(kToC(airAt(program, state, 80 * 60).airK)).toBeCloseTo(120, 9);
-    expect(nextEventS(program, state)).toBeCloseTo(110 * 60, 9);
+    expect(nextEventS(program, state)).toBeCloseTo(140 * 60, 9);
   });
 
   it('never overshoots a ramp target even past the scheduled end', () => {
@@ -179,9 +179,9 @@ describe('cycle state machine', () => {
 });
 
 describe('planned schedule', () => {
-  it('gives the corner points of the schedule (closed form: 50, 110, 140, 260, 300 min)', () => {
+  it('gives the corner points of the schedule (closed form: 50, 140, 180, 300, 360 min)', () => {
     const s = plannedSchedule(cycleOf(twoDwell));
-    expect(s.timeMin).toEqual([0, 50, 110, 140, 260, 300].map((m) => expect.closeTo(m, 9)));
+    expect(s.timeMin).toEqual([0, 50, 140, 180, 300, 360].map((m) => expect.closeTo(m, 9)));
     expect(s.airC).toEqual([20, 120, 120, 180, 180, 60]);
     expect(s.pressureBar).toEqual([7, 7, 7, 7, 7, 3]);
   });

@@ -136,8 +136,11 @@ export function quasiIsotropic(plies: number, thicknessMm = 0.19): { angleDeg: n
 }
 
 /**
- * THE reference study: 24 plies quasi-isotropic on an aluminium plate, two-dwell cure (2 °C/min to 120 °C,
- * 60 min, 2 °C/min to 180 °C, 120 min, 3 °C/min to 60 °C; holds start when the lagging part point is in band).
+ * THE reference study: 24 plies quasi-isotropic on an aluminium plate, two-dwell 6 h cure (2 °C/min to 120 °C,
+ * 90 min, 1.5 °C/min to 180 °C, 120 min, 2 °C/min to 60 °C: 50 + 90 + 40 + 120 + 60 = 360 min scheduled; holds
+ * start when the lagging part point is in band, so the run is a few minutes longer). A long first dwell below
+ * the cure temperature and gentle ramps are the usual shape for a 180 °C-class epoxy: the resin flows and
+ * consolidates before gel, and the exotherm is spread out (common practice, no source).
  */
 export function referenceStudy(): StudyParams {
   const input: StudyParamsInput = {
@@ -154,10 +157,10 @@ export function referenceStudy(): StudyParams {
       startC: 20,
       segments: [
         { kind: 'ramp', rateCPerMin: 2, targetC: 120, pressureBar: 7 },
-        { kind: 'hold', holdMin: 60, pressureBar: 7, start: 'lagging-part', bandC: 5 },
-        { kind: 'ramp', rateCPerMin: 2, targetC: 180, pressureBar: 7 },
+        { kind: 'hold', holdMin: 90, pressureBar: 7, start: 'lagging-part', bandC: 5 },
+        { kind: 'ramp', rateCPerMin: 1.5, targetC: 180, pressureBar: 7 },
         { kind: 'hold', holdMin: 120, pressureBar: 7, start: 'lagging-part', bandC: 5 },
-        { kind: 'cool', rateCPerMin: 3, targetC: 60, pressureBar: 7 },
+        { kind: 'cool', rateCPerMin: 2, targetC: 60, pressureBar: 7 },
       ],
     },
     constraint: 'tool-held',
@@ -170,7 +173,7 @@ export function referenceStudy(): StudyParams {
       maxCoolRateCPerMin: 4,
       maxWarpageMm: 1,
       maxSpringInDeg: 1.5,
-      maxCycleMin: 420,
+      maxCycleMin: 480, // one 8 h shift for a 6 h schedule, with room for a hold that runs long
     },
   };
   return parseStudy(input);

@@ -56,8 +56,9 @@ describe('simulate: the reference study', () => {
     // demould at the end of the history
     expect(r.history.timeS[n - 1]).toBeCloseTo(r.segmentBoundsS[5], 6);
     expect(r.summary.cycleMin).toBeCloseTo(r.segmentBoundsS[5] / 60, 6);
-    // lagging-part holds start no earlier than the clock would: cycle ≥ scheduled 300 min
-    expect(r.summary.cycleMin).toBeGreaterThanOrEqual(300 - 1e-9);
+    // lagging-part holds start no earlier than the clock would: cycle ≥ scheduled 360 min
+    // (closed form: 100/2 + 90 + 60/1.5 + 120 + 120/2 = 360 min)
+    expect(r.summary.cycleMin).toBeGreaterThanOrEqual(360 - 1e-9);
     expect(r.summary.finalCureMin).toBeGreaterThan(0.8);
     expect(r.summary.limits.map((l) => l.key)).toEqual([
       'minFinalCure', 'maxOvershootC', 'maxGradientC', 'maxHeatRateCPerMin', 'maxCoolRateCPerMin', 'maxWarpageMm', 'maxSpringInDeg', 'maxCycleMin',
@@ -81,8 +82,8 @@ describe('simulate: the reference study', () => {
       for (const seg of raw.cycle.segments) if (seg.kind === 'hold') Object.assign(seg, { start: undefined, bandC: undefined });
     }
     const r = simulate(raw);
-    // clock-started holds: exactly the scheduled 300 min (closed form, see cycle tests)
-    expect(r.summary.cycleMin).toBeCloseTo(300, 9);
+    // clock-started holds: exactly the scheduled 360 min (closed form, see cycle tests)
+    expect(r.summary.cycleMin).toBeCloseTo(360, 9);
   });
 
   it('returns fresh typed arrays on every call', () => {
@@ -244,7 +245,7 @@ describe('simulate: step-size convergence', () => {
     expect(runs[1].steps).toBeGreaterThan(1.8 * runs[0].steps);
     const probes = [
       (r: SimulationResult) => atBoundary(r, r.history.alphaMin, 50), // end of the first ramp
-      (r: SimulationResult) => atBoundary(r, r.history.midPlaneK, 140), // end of the second ramp
+      (r: SimulationResult) => atBoundary(r, r.history.midPlaneK, 180), // end of the second ramp (50 + 90 + 40 min)
     ];
     for (const probe of probes) {
       const [a, b, c] = runs.map(probe);

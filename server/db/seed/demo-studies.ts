@@ -93,18 +93,18 @@ export const DEMO_PARTS: readonly DemoPart[] = [
           { author: 'tomas.reed', message: 'Shop cycle applied to the 40-ply stack', edit: unchanged },
           {
             author: 'tomas.reed',
-            message: 'Intermediate dwell lengthened to 90 min',
+            message: 'Intermediate dwell lengthened to 120 min',
             edit: (p) => {
               const hold = segments(p)[1];
-              if (hold.kind === 'hold') hold.holdMin = 90;
+              if (hold.kind === 'hold') hold.holdMin = 120;
             },
           },
           {
             author: 'amara.okafor',
-            message: 'Cool-down at 2 °C/min to respect the tool limit',
+            message: 'Cool-down at 1.5 °C/min to respect the tool limit',
             edit: (p) => {
               const cool = segments(p)[segments(p).length - 1];
-              if (cool.kind === 'cool') cool.rateCPerMin = 2;
+              if (cool.kind === 'cool') cool.rateCPerMin = 1.5;
             },
           },
         ],

@@ -14,10 +14,10 @@ describe('report inputs in words', () => {
     expect(describeCycleSteps(referenceStudy())).toEqual([
       'Start at 20 °C',
       '1. ramp at 2 °C/min to 120 °C, 7 bar',
-      '2. hold 60 min, 7 bar, clock starts when the lagging part point is within ±5 °C',
-      '3. ramp at 2 °C/min to 180 °C, 7 bar',
+      '2. hold 90 min, 7 bar, clock starts when the lagging part point is within ±5 °C',
+      '3. ramp at 1.5 °C/min to 180 °C, 7 bar',
       '4. hold 120 min, 7 bar, clock starts when the lagging part point is within ±5 °C',
-      '5. cool at 3 °C/min to 60 °C, 7 bar',
+      '5. cool at 2 °C/min to 60 °C, 7 bar',
     ]);
   });
 

@@ -39,7 +39,7 @@ function drag(handle: Element, dx: number, dy: number, steps = 5) {
 
 describe('cycle editor', () => {
   beforeEach(() => {
-    // Reference cycle: ramp 2 °C/min to 120, dwell 60 min, ramp 2 °C/min to 180, dwell 120 min, cool 3 °C/min to 60.
+    // Reference cycle: ramp 2 °C/min to 120, dwell 90 min, ramp 1.5 °C/min to 180, dwell 120 min, cool 2 °C/min to 60.
     studyEditorStore.getState().load({ studyId: 'test', name: 'test', baseRevision: 1 }, referenceStudy());
   });
 
@@ -58,7 +58,7 @@ describe('cycle editor', () => {
   it('dragging a dwell up 15 px raises the target of the ramp that leads into it by 15 °C', () => {
     renderEditor();
     drag(screen.getByRole('slider', { name: 'Dwell 2 temperature' }), 2, -15);
-    expect(segments()[2]).toMatchObject({ kind: 'ramp', targetC: 195, rateCPerMin: 2 });
+    expect(segments()[2]).toMatchObject({ kind: 'ramp', targetC: 195, rateCPerMin: 1.5 });
   });
 
   it('dragging a ramp’s end sideways changes its rate so it reaches the same target later', () => {
@@ -87,8 +87,8 @@ describe('cycle editor', () => {
 
   it('refuses shrinking a dwell to nothing, with a message', () => {
     renderEditor();
-    drag(screen.getByRole('slider', { name: 'Dwell 1 end' }), -75, 0, 1);
-    expect(segments()[1]).toMatchObject({ holdMin: 60 });
+    drag(screen.getByRole('slider', { name: 'Dwell 1 end' }), -105, 0, 1);
+    expect(segments()[1]).toMatchObject({ holdMin: 90 });
     expect(screen.getByTestId('cycle-refusal').textContent).toMatch(/Dwell 1: a dwell of -15 min is not a dwell/);
   });
 
