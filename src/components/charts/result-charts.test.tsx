@@ -6,6 +6,8 @@ import type { ResultRun } from './history-chart';
 import { peakText, PlyStressChart } from './ply-stress-chart';
 import { CureChart, TemperatureChart } from './result-charts';
 import { CHART_MARGIN, makeTimeAxis } from './time-axis';
+import { ThroughThicknessCharts } from './through-thickness-chart';
+import { drawnCornerDeg, ShapeChart } from './shape-chart';
 
 // A plot 600 px wide for 600 min: one pixel is one minute.
 const axis = makeTimeAxis([0, 600], 600 + CHART_MARGIN.left + CHART_MARGIN.right);
@@ -17,6 +19,8 @@ function run(label: string, gelTimeMin: number, plyStressMPa: number[]): ResultR
   const history = {
     timeS: f((i) => i * 120),
     airK: f((i) => 293 + i * 0.5),
+    toolK: f((i) => 293 + i * 0.48),
+    bagSurfaceK: f((i) => 293 + i * 0.47),
     midPlaneK: f((i) => 293 + i * 0.45),
     alphaMin: f((i) => (i / (n - 1)) * 0.9),
     alphaMax: f((i) => (i / (n - 1)) * 0.95),
@@ -91,5 +95,49 @@ describe('ply stress chart', () => {
     expect(label).toContain('σ₁ along fibre peak A 12.0 · B 9.0 MPa');
     expect(label).toContain('σ₂ across fibre peak A -6.0 · B -4.5 MPa');
     expect(label).toContain('τ₁₂ in-plane shear peak A 0.0 · B 0.0 MPa');
+  });
+});
+
+describe('temperature chart', () => {
+  it('draws the same four temperatures as the workspace: air, tool, part surface and mid-plane', () => {
+    render(<TemperatureChart runs={[run('only', 100, [1, 2])]} axis={axis} />);
+    const chart = screen.getByTestId('chart-temperatures');
+    for (const name of ['air', 'tool', 'part surface', 'mid-plane']) expect(within(chart).getByText(name)).toBeTruthy();
+    expect(chart.querySelectorAll('[data-run="A"] > g > path')).toHaveLength(4);
+  });
+});
+
+describe('through-thickness and shape charts', () => {
+  /** Two nodes, two steps: a 1 mm laminate at 20 °C then at 100 °C (bottom) / 110 °C (top). */
+  function profiled(label: string, topC: number): ResultRun {
+    const r = run(label, 100, [1, 2]);
+    (r.result as { profiles: SimulationResult['profiles'] }).profiles = {
+      zM: Float64Array.from([0, 1e-3]),
+      temperatureK: Float64Array.from([293.15, 293.15, 373.15, topC + 273.15]),
+      alpha: Float64Array.from([0, 0, 0.3, 0.4]),
+    };
+    return r;
+  }
+
+  it('overlay both runs’ profiles at the time asked for, each with its export buttons', () => {
+    render(<ThroughThicknessCharts runs={[profiled('reference', 110), profiled('candidate', 130)]} minutes={2} />);
+    const temperature = screen.getByTestId('profile-temperature');
+    expect(temperature.querySelectorAll('[data-run]')).toHaveLength(2);
+    expect(within(temperature).getByRole('button', { name: 'Download Temperature as SVG' })).toBeTruthy();
+    expect(within(temperature).getByRole('button', { name: 'Download Temperature as PNG' })).toBeTruthy();
+    expect(within(screen.getByTestId('profile-cure')).getByRole('button', { name: 'Download Degree of cure as PNG' })).toBeTruthy();
+    // at 2 min (the second step: steps are 120 s apart) B's top sits right of A's (130 °C against 110 °C)
+    const endX = (letter: string) => Number(/L([\d.]+),[\d.-]+$/.exec(temperature.querySelector(`[data-run="${letter}"] > path`)!.getAttribute('d')!)![1]);
+    expect(endX('B')).toBeGreaterThan(endX('A'));
+  });
+
+  it('draw each run’s strip and corner in its dash, and say when the corner is drawn at its limit', () => {
+    const shape = (label: string, springInDeg: number) => ({ label, kxPerM: 0.1, springInDeg, stripSpanMm: 300, cornerAngleDeg: 90 });
+    render(<ShapeChart runs={[shape('reference', 1), shape('candidate', 2)]} factor={10} />);
+    const chart = screen.getByTestId('chart-shape');
+    expect(chart.querySelector('[data-run="B"] > path')!.getAttribute('stroke-dasharray')).toBe('7 4');
+    expect(within(chart).getByRole('button', { name: 'Download Shape after demould as SVG' })).toBeTruthy();
+    expect(drawnCornerDeg(90, 1, 10)).toEqual({ deg: 80, clipped: false });
+    expect(drawnCornerDeg(90, 2, 50)).toEqual({ deg: 5, clipped: true });
   });
 });

@@ -10,9 +10,12 @@ import type { TimeAxis } from './time-axis';
 
 const same = (v: number) => v;
 
+/** The four temperatures the workspace's cycle editor draws under its set point, in the same colours. */
 export const TEMPERATURE_SERIES: HistorySeries[] = [
-  { label: 'air', colour: 'var(--color-ink-soft)', pick: (h) => h.airK, toDisplay: kToC, strokeWidth: 1.1 },
-  { label: 'part mid-plane', colour: 'var(--color-ember)', pick: (h) => h.midPlaneK, toDisplay: kToC },
+  { label: 'air', colour: 'var(--color-ember)', pick: (h) => h.airK, toDisplay: kToC, strokeWidth: 1.2 },
+  { label: 'tool', colour: 'var(--color-slate)', pick: (h) => h.toolK, toDisplay: kToC, strokeWidth: 1.2 },
+  { label: 'part surface', colour: 'var(--color-saffron)', pick: (h) => h.bagSurfaceK, toDisplay: kToC, strokeWidth: 1.3 },
+  { label: 'mid-plane', colour: 'var(--color-fault)', pick: (h) => h.midPlaneK, toDisplay: kToC, strokeWidth: 2 },
 ];
 export const CURE_SERIES: HistorySeries[] = [
   {

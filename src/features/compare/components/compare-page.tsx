@@ -231,6 +231,7 @@ function Comparison({ a, b, onChoose }: { a: string; b: string; onChoose: (a: st
                 { label: labelA, result: solvedA.data, gelPoint: revA.data?.params.resin.gelPoint },
                 { label: labelB, result: solvedB.data, gelPoint: revB.data?.params.resin.gelPoint },
               ]}
+              geometries={revA.data && revB.data ? [revA.data.params.geometry, revB.data.params.geometry] : undefined}
               width={width}
               fileBase={`dwellform-compare-${fileSlug(labelA)}-vs-${fileSlug(labelB)}`}
             />

@@ -231,7 +231,7 @@ export function ReportPage() {
           </Section>
 
           <Section title="Predicted histories and stresses" id="report-charts">
-            <ResultChartSet runs={[{ label: rev.label, result, gelPoint: rev.params.resin.gelPoint }]} width={PRINT_CHART_WIDTH} fileBase={`dwellform-${fileSlug(rev.label)}`} />
+            <ResultChartSet runs={[{ label: rev.label, result, gelPoint: rev.params.resin.gelPoint }]} geometries={[rev.params.geometry]} width={PRINT_CHART_WIDTH} fileBase={`dwellform-${fileSlug(rev.label)}`} />
           </Section>
 
           <Section title="Model assumptions" id="report-assumptions">

@@ -5,7 +5,7 @@
  */
 import { createStore, useStore } from 'zustand';
 import type { SimulationResult } from '../model/simulation-result';
-import { defaultExaggeration } from '../model/exaggeration';
+import { defaultExaggeration } from '../../../components/charts/exaggeration';
 
 export type ResultsState = {
   result: SimulationResult | null;

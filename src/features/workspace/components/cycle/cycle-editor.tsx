@@ -1,11 +1,13 @@
-import { memo, useMemo, useRef, useState, type KeyboardEvent, type PointerEvent as ReactPointerEvent } from 'react';
-import { ZERO_CELSIUS_K } from '../../../../../shared/units';
+import { memo, useMemo, useRef, useState, type KeyboardEvent, type PointerEvent as ReactPointerEvent, type RefObject } from 'react';
+import { kToC } from '../../../../../shared/units';
 import { produce } from 'immer';
 import { scaleLinear, type ScaleLinear } from 'd3-scale';
 import type { StudyParams } from '../../../../../shared/schemas/study';
 import { TimeTicks, ValueTicks, useTimeAxis } from '../../../../components/charts/time-axis';
 import { seriesPath } from '../../../../components/charts/series-path';
 import { ScrubLine } from '../../../../components/charts/scrub-line';
+import { TEMPERATURE_SERIES } from '../../../../components/charts/result-charts';
+import { ChartExportControl } from '../../../../components/export/chart-export-control';
 import { cycleSpans, cycleVertices, type SegmentSpan } from '../../model/cycle-geometry';
 import { handleEdit, handleId, segmentNames, type CycleHandle, type HandleDelta } from '../../model/cycle-handles';
 import { issuesUnder } from '../../model/study-validation';
@@ -66,6 +68,7 @@ export function CycleEditor({
   const [refusal, setRefusal] = useState<string | null>(null);
   const [dragging, setDragging] = useState<string | null>(null);
   const drag = useRef<DragState | null>(null);
+  const svgRef = useRef<SVGSVGElement>(null);
   const frozenDomain = useRef<[number, number] | null>(null);
   const plotHeight = height - PLOT_TOP - 30;
 
@@ -81,7 +84,7 @@ export function CycleEditor({
     for (const s of spans) lo = Math.min(lo, s.startC, s.endC);
     if (result) {
       const mid = result.history.midPlaneK;
-      for (let i = 0; i < mid.length; i++) hi = Math.max(hi, mid[i] - ZERO_CELSIUS_K);
+      for (let i = 0; i < mid.length; i++) hi = Math.max(hi, kToC(mid[i]));
     }
     const next: [number, number] = [Math.floor(lo / 50) * 50, Math.ceil((hi + 25) / 50) * 50];
     // Hold the scale still under a dragging pointer; only grow it when a handle would leave the plot.
@@ -185,6 +188,7 @@ export function CycleEditor({
   return (
     <div className="relative">
       <svg
+        ref={svgRef}
         width={axis.width}
         height={height}
         role="group"
@@ -221,7 +225,7 @@ export function CycleEditor({
           ))}
         </g>
       </svg>
-      <ThermalLegend />
+      <ThermalLegend target={svgRef} />
       <p role="status" aria-live="polite" className="min-h-5 px-2 text-xs text-fault" data-testid="cycle-refusal">
         {refusal}
       </p>
@@ -250,13 +254,6 @@ function SegmentBands({ spans, x, height }: { spans: SegmentSpan[]; x: ScaleLine
   );
 }
 
-const TRACES: { key: keyof SimulationResult['history']; label: string; colour: string; width: number; dash?: string }[] = [
-  { key: 'airK', label: 'air', colour: 'var(--color-ember)', width: 1.2 },
-  { key: 'toolK', label: 'tool', colour: 'var(--color-slate)', width: 1.2 },
-  { key: 'bagSurfaceK', label: 'part surface', colour: 'var(--color-saffron)', width: 1.3 },
-  { key: 'midPlaneK', label: 'mid-plane', colour: 'var(--color-fault)', width: 2 },
-];
-
 const ThermalTraces = memo(function ThermalTraces({
   result,
   x,
@@ -270,17 +267,16 @@ const ThermalTraces = memo(function ThermalTraces({
 }) {
   const t = result.history.timeS;
   const toX = (s: number) => x(s / 60);
-  const toY = (k: number) => y(k - ZERO_CELSIUS_K);
+  const toY = (k: number) => y(kToC(k));
   return (
     <g aria-hidden pointerEvents="none" data-testid="thermal-traces">
-      {TRACES.map((tr) => (
+      {TEMPERATURE_SERIES.map((tr) => (
         <path
-          key={tr.key}
-          d={seriesPath(t, result.history[tr.key] as Float64Array, toX, toY, columns)}
+          key={tr.label}
+          d={seriesPath(t, tr.pick(result.history), toX, toY, columns)}
           fill="none"
           stroke={tr.colour}
-          strokeWidth={tr.width}
-          strokeDasharray={tr.dash}
+          strokeWidth={tr.strokeWidth}
         />
       ))}
       {Array.from(result.segmentBoundsS).map((s, i) => (
@@ -290,7 +286,7 @@ const ThermalTraces = memo(function ThermalTraces({
   );
 });
 
-function ThermalLegend() {
+function ThermalLegend({ target }: { target: RefObject<SVGSVGElement | null> }) {
   return (
     <ul className="flex flex-wrap gap-x-4 gap-y-1 px-2 text-xs text-ink-soft" aria-label="Line key">
       <li className="flex items-center gap-1.5">
@@ -299,16 +295,19 @@ function ThermalLegend() {
         </svg>
         set point (drag the handles)
       </li>
-      {TRACES.map((tr) => (
-        <li key={tr.key} className="flex items-center gap-1.5">
+      {TEMPERATURE_SERIES.map((tr) => (
+        <li key={tr.label} className="flex items-center gap-1.5">
           <svg width="18" height="6" aria-hidden>
-            <line x1="0" x2="18" y1="3" y2="3" stroke={tr.colour} strokeWidth={tr.width + 0.6} />
+            <line x1="0" x2="18" y1="3" y2="3" stroke={tr.colour} strokeWidth={(tr.strokeWidth ?? 1.6) + 0.6} />
           </svg>
           {tr.label}
         </li>
       ))}
       <li className="flex items-center gap-1.5">
         <span aria-hidden className="inline-block h-2.5 w-4 bg-saffron-soft" /> dwell
+      </li>
+      <li className="ml-auto">
+        <ChartExportControl target={target} fileBase="dwellform-cure-cycle-and-temperatures" title="Cure cycle and temperatures" />
       </li>
     </ul>
   );
@@ -422,6 +421,7 @@ function Handle({
       aria-valuenow={valueNow}
       aria-valuetext={valueText}
       data-handle={handleId(handle)}
+      data-export="skip"
       className="outline-none [&:focus-visible>*]:stroke-slate [&:focus-visible>*]:[stroke-width:3]"
       style={{ cursor }}
       fill={active ? 'var(--color-ember)' : 'var(--color-paper-raised)'}
