@@ -1,4 +1,5 @@
 import { defineConfig } from '@playwright/test';
+import { chromiumLaunchOptions } from './tools/dev/chromium';
 
 // End-to-end tests drive Debian's Chromium (no browser download is possible
 // here) against the built app served the way `npm start` serves it, on its
@@ -16,23 +17,11 @@ export default defineConfig({
   retries: process.env.CI ? 1 : 0,
   timeout: 60_000,
   expect: { timeout: 15_000 },
-  reporter: process.env.CI ? [['list']] : [['list']],
+  reporter: 'list',
   use: {
     baseURL,
     trace: 'retain-on-failure',
-    launchOptions: {
-      executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
-      args: [
-        '--no-sandbox',
-        '--disable-gpu',
-        '--disable-dev-shm-usage',
-        '--disable-background-networking',
-        '--disable-component-update',
-        '--disable-sync',
-        '--no-first-run',
-        '--disable-quic',
-      ],
-    },
+    launchOptions: chromiumLaunchOptions,
   },
   projects: [
     { name: 'built', use: { browserName: 'chromium' }, testIgnore: /dev-server\.spec\.ts/ },
@@ -53,6 +42,11 @@ export default defineConfig({
       PORT: String(port),
       DB_NAME: process.env.E2E_DB_NAME ?? 'dwellform_test_e2e',
       NODE_ENV: 'production',
+      // Its own fake OAuth and mail ports, next to its own app port, so a dev
+      // instance on the default ports is never reused or stopped by the run.
+      FAKE_OAUTH_PORT: process.env.FAKE_OAUTH_PORT ?? String(port + 2),
+      SMTP_PORT: process.env.SMTP_PORT ?? String(port + 3),
+      FAKE_MAIL_HTTP_PORT: process.env.FAKE_MAIL_HTTP_PORT ?? String(port + 4),
     },
   },
   {

@@ -19,6 +19,7 @@ import path from 'node:path';
 import zlib from 'node:zlib';
 import { chromium } from 'playwright-core';
 import { preview } from 'vite';
+import { chromiumLaunchOptions } from '../tools/dev/chromium';
 
 const STEPS = 100;
 /** At the 1800 px wide layout one minute is about 2.7 px: 5 px moves the dwell end by at least one whole minute. */
@@ -74,19 +75,7 @@ async function main() {
   if (!address || typeof address === 'string') throw new Error('preview server has no port');
   const baseURL = `http://127.0.0.1:${address.port}`;
 
-  const browser = await chromium.launch({
-    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
-    args: [
-      '--no-sandbox',
-      '--disable-gpu',
-      '--disable-dev-shm-usage',
-      '--disable-background-networking',
-      '--disable-component-update',
-      '--disable-sync',
-      '--no-first-run',
-      '--disable-quic',
-    ],
-  });
+  const browser = await chromium.launch(chromiumLaunchOptions);
   try {
     const page = await browser.newPage({ viewport: { width: 1800, height: 1200 } });
     page.on('pageerror', (e) => console.error(`page error: ${e.message}`));
