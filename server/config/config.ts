@@ -34,6 +34,8 @@ const envSchema = z.object({
   FAKE_MAIL_HTTP_PORT: port(5183),
   INVITE_TTL_HOURS: z.coerce.number().positive().max(24 * 30).default(72),
   AUTH_RATE_LIMIT: z.coerce.number().int().min(1).default(30),
+  /** GET /api/me per client address per minute (every page load asks once). */
+  ME_RATE_LIMIT: z.coerce.number().int().min(1).default(300),
 });
 
 export type Env = z.infer<typeof envSchema>;
@@ -70,6 +72,7 @@ export interface Config {
   };
   inviteTtlHours: number;
   authRateLimit: number;
+  meRateLimit: number;
 }
 
 // The version has one home, package.json; npm and tsx run from the project root.
@@ -127,5 +130,6 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     },
     inviteTtlHours: e.INVITE_TTL_HOURS,
     authRateLimit: e.AUTH_RATE_LIMIT,
+    meRateLimit: e.ME_RATE_LIMIT,
   };
 }

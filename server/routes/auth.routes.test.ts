@@ -71,10 +71,35 @@ describe('sign-in through the local OAuth provider', () => {
     expect((await signIn(h, 'ines.varga', { next: 'https://evil.example/' })).landedOn).toBe('/');
   });
 
-  it('gives an anonymous visitor a CSRF token but no user', async () => {
+  it('gives an anonymous visitor a CSRF token on request but no user', async () => {
     const anon = await anonymous(h.app);
     expect(anon.userId).toBeNull();
     expect(anon.csrf).toMatch(/^[0-9a-f]{64}$/);
+  });
+
+  it('stores no session for an anonymous GET /api/me (no row, no cookie)', async () => {
+    const count = async () => Number(((await h.db.sequelize.query('SELECT COUNT(*) AS n FROM sessions'))[0] as { n: number }[])[0].n);
+    const before = await count();
+    for (let i = 0; i < 3; i++) {
+      const res = await request(h.app).get('/api/me').expect(200);
+      expect(res.body).toMatchObject({ user: null, csrfToken: null });
+      expect(res.headers['set-cookie']).toBeUndefined();
+    }
+    expect(await count()).toBe(before);
+  });
+});
+
+describe('rate limiting on /api/me', () => {
+  let limited: Harness;
+  beforeAll(async () => {
+    limited = await startHarness({ env: { ME_RATE_LIMIT: '2' } });
+  });
+  afterAll(() => limited.close());
+
+  it('answers 429 once the per-minute budget is spent', async () => {
+    const statuses: number[] = [];
+    for (let i = 0; i < 3; i++) statuses.push((await request(limited.app).get('/api/me')).status);
+    expect(statuses).toEqual([200, 200, 429]);
   });
 });
 

@@ -18,8 +18,10 @@ declare module 'express-session' {
 
 export async function meView(req: Request) {
   const user = req.user as User | undefined;
+  // An anonymous visitor gets no token: storing one would write a session row
+  // for every page view by anyone (GET /api/auth/csrf hands one out on demand).
+  if (!user) return { user: null, memberships: [], csrfToken: null };
   const csrfToken = csrf.generateToken(req);
-  if (!user) return { user: null, memberships: [], csrfToken };
   const memberships = await Membership.findAll({
     where: { userId: user.id },
     include: [{ model: Team, as: 'team', attributes: ['id', 'slug', 'name'] }],
@@ -74,7 +76,16 @@ export function authRoutes(config: Config, passport: PassportStatic): Router {
     res.set('Cache-Control', 'no-store').json({ csrfToken: csrf.generateToken(req) });
   });
 
-  router.get('/me', async (req, res) => {
+  // Every page load asks who is signed in; the limit only stops a client (or script) hammering it.
+  const meLimiter = rateLimit({
+    windowMs: 60_000,
+    limit: config.meRateLimit,
+    standardHeaders: 'draft-7',
+    legacyHeaders: false,
+    message: { error: 'Too many requests for /api/me; wait a minute and try again.' },
+  });
+
+  router.get('/me', meLimiter, async (req, res) => {
     res.set('Cache-Control', 'no-store').json(await meView(req));
   });
 

@@ -19,7 +19,7 @@ beforeEach(async () => {
 
 /** The link exactly as it arrived in the fake mailbox, read through the dev mailbox API. */
 async function linkFromMailbox(email: string): Promise<string> {
-  const box = await (await anonymous(h.app)).agent.get('/api/dev/mailbox').expect(200);
+  const box = await lead.agent.get('/api/dev/mailbox').expect(200);
   const mail = box.body.find((m: { to: string[] }) => m.to.includes(email));
   if (!mail) throw new Error(`no mail to ${email}`);
   return mail.text.match(/https?:\/\/\S+\/invite\/([A-Za-z0-9_-]+)/)![1];
@@ -72,8 +72,9 @@ describe('invitations', () => {
   it('lets only one of two simultaneous accepts of one link through', async () => {
     await call(lead, 'post', `/api/teams/${teamId}/invites`, { email: newPerson.email, role: 'viewer' }).expect(201);
     const token = await linkFromMailbox(newPerson.email);
+    // the invited person signed in twice (two browsers): both sessions may accept, only one does
     const a = await signIn(h, newPerson);
-    const b = await signIn(h, { login: 'li.second', name: 'Li Second', email: 'li@example.test' });
+    const b = await signIn(h, newPerson);
     const statuses = (await Promise.all([a, b].map((who) => call(who, 'post', `/api/invites/${token}/accept`)))).map((r) => r.status).sort();
     expect(statuses).toEqual([200, 410]);
   });
@@ -88,6 +89,34 @@ describe('invitations', () => {
     expect(await h.db.models.Membership.count({ where: { userId: invitee.userId! } })).toBe(0);
     const list = await call(lead, 'get', `/api/teams/${teamId}/invites`).expect(200);
     expect(list.body[0].status).toBe('expired');
+  });
+
+  it('refuses someone signed in with another address (403 naming both) and keeps the link usable', async () => {
+    await call(lead, 'post', `/api/teams/${teamId}/invites`, { email: newPerson.email, role: 'engineer' }).expect(201);
+    const token = await linkFromMailbox(newPerson.email);
+    const other = await signIn(h, { login: 'li.second', name: 'Li Second', email: 'li@example.test' });
+    const res = await call(other, 'post', `/api/invites/${token}/accept`).expect(403);
+    expect(res.body.error).toContain(newPerson.email);
+    expect(res.body.error).toContain('li@example.test');
+    expect(await h.db.models.Membership.count({ where: { teamId, userId: other.userId! } })).toBe(0);
+    // the address is compared without regard to case
+    const invitee = await signIn(h, { ...newPerson, email: newPerson.email.toUpperCase() });
+    await call(invitee, 'post', `/api/invites/${token}/accept`).expect(200);
+  });
+
+  it('writes the expiry in the mail as a date and time with its zone', async () => {
+    await call(lead, 'post', `/api/teams/${teamId}/invites`, { email: newPerson.email, role: 'viewer' }).expect(201);
+    const mail = h.mail.messages.find((m) => m.to.includes(newPerson.email))!;
+    const stored = (await h.db.models.Invite.findOne({ where: { email: newPerson.email } }))!.expiresAt;
+    expect(mail.text).not.toMatch(/\d{4}-\d\d-\d\dT/);
+    // e.g. "Tuesday, 1 December 2026 at 23:15 UTC", checked against the stored expiry
+    const day = stored.toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
+    const hhmm = `${String(stored.getUTCHours()).padStart(2, '0')}:${String(stored.getUTCMinutes()).padStart(2, '0')}`;
+    expect(mail.text).toContain(`${day} at ${hhmm} UTC`);
+  });
+
+  it('shows the caught mails to signed-in people only', async () => {
+    await (await anonymous(h.app)).agent.get('/api/dev/mailbox').expect(401);
   });
 
   it('answers an unknown token with 404', async () => {

@@ -31,6 +31,20 @@ export function inviteView(invite: Invite) {
   };
 }
 
+const expiryFormat = new Intl.DateTimeFormat('en-GB', {
+  weekday: 'long',
+  day: 'numeric',
+  month: 'long',
+  year: 'numeric',
+  hour: '2-digit',
+  minute: '2-digit',
+  timeZone: 'UTC',
+  timeZoneName: 'short',
+});
+
+/** The expiry as a person reads it, with its time zone: "Tuesday, 1 December 2026 at 23:15 UTC". */
+export const formatExpiry = (date: Date) => expiryFormat.format(date);
+
 /**
  * Sends the invitation mail and records the outcome on the invite. A failed
  * send is reported back (mailStatus 'failed' and the reason); the invite
@@ -44,7 +58,7 @@ async function mailInvite(ctx: InviteContext, invite: Invite, team: Team, token:
       subject: `${inviterName} invited you to ${team.name} on Dwellform`,
       text:
         `${inviterName} invited you to join the team "${team.name}" on Dwellform as ${invite.role}.\n\n` +
-        `Open this link to accept (it works once and expires ${invite.expiresAt.toISOString()}):\n${link}\n`,
+        `Open this link to accept (it works once and expires on ${formatExpiry(invite.expiresAt)}):\n${link}\n`,
     });
     await invite.update({ mailStatus: 'sent', mailError: null });
   } catch (err) {
@@ -115,8 +129,15 @@ export async function previewInvite(token: string) {
  * concurrent accepts cannot both succeed. An existing member gets the invited
  * role only if it is higher than the one they hold.
  */
-export async function acceptInvite(sequelize: Sequelize, token: string, userId: number) {
+export async function acceptInvite(sequelize: Sequelize, token: string, user: { id: number; email: string | null }) {
   const invite = await findUsable(token);
+  if (!user.email || user.email.trim().toLowerCase() !== invite.email.trim().toLowerCase()) {
+    throw new HttpError(
+      403,
+      `This invitation was sent to ${invite.email}, but you are signed in as ${user.email ?? 'an account with no e-mail address'}. Sign in with the invited address, or ask a lead to invite this one.`,
+    );
+  }
+  const userId = user.id;
   return sequelize.transaction(async (transaction) => {
     const [claimed] = await Invite.update(
       { acceptedAt: new Date(), acceptedBy: userId },
