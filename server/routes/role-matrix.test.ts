@@ -2,15 +2,18 @@
  * The role × route matrix: every API route, called by an anonymous visitor,
  * a viewer, an engineer and a lead of the demo team, a site admin, and the
  * lead of another team. Each cell's status is asserted. Write requests carry
- * valid bodies built from the current database state, so a refusal can only
+ * valid bodies built from the current database state (run-log uploads are
+ * multipart bodies built from the demo run-log CSV), so a refusal can only
  * come from the role check. A last check proves the table lists every route
- * the app registers.
+ * the app registers, with no exceptions.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { anonymous, call, resetToDemo, signIn, startHarness, type Harness, type SignedIn } from '../test/harness';
 import { referenceStudy } from '../../shared/solver/demo-cards';
 import { createInvite, type InviteContext } from '../services/invite.service';
 import { createMailer } from '../mail/mailer';
+import { demoRunLogCsv, inspectRunLog } from '../../shared/run-log/index';
+import { parseStudy } from '../../shared/schemas/index';
 
 const PERSONAS = ['anonymous', 'viewer', 'engineer', 'lead', 'admin', 'other'] as const;
 type Persona = (typeof PERSONAS)[number];
@@ -22,16 +25,26 @@ interface Ctx {
   studyId: number;
   viewerId: number;
   latest: () => Promise<number>;
-  inviteToken: () => Promise<string>;
+  inviteToken: (email?: string) => Promise<string>;
+  emailOf: Record<Persona, string>;
+  runLogId: number;
+  /** the demo run log as a CSV, with its start moved so each upload is a new file (same file twice is a 409) */
+  runLogCsv: (fresh: boolean) => string;
   inviteId: () => Promise<number>;
   throwawayMember: () => Promise<number>;
+}
+
+interface Multipart {
+  fields: Record<string, string>;
+  file: { bytes: Buffer; name: string; type: string };
 }
 
 interface Row {
   method: Method;
   route: string; // as registered, e.g. /api/studies/:studyId
-  path: (c: Ctx) => Promise<string> | string;
+  path: (c: Ctx, persona: Persona) => Promise<string> | string;
   body?: (c: Ctx) => Promise<unknown> | unknown;
+  multipart?: (c: Ctx) => Multipart;
   expect: Record<Persona, number>;
 }
 
@@ -47,7 +60,8 @@ const ROWS: Row[] = [
   { method: 'get', route: '/api/auth/csrf', path: () => '/api/auth/csrf', expect: s(200, 200, 200, 200, 200, 200) },
   { method: 'get', route: '/api/auth/github', path: () => '/api/auth/github', expect: s(302, 302, 302, 302, 302, 302) },
   { method: 'get', route: '/api/auth/github/callback', path: () => '/api/auth/github/callback', expect: s(302, 302, 302, 302, 302, 302) },
-  { method: 'get', route: '/api/dev/mailbox', path: () => '/api/dev/mailbox', expect: s(200, 200, 200, 200, 200, 200) },
+  // the caught mails hold working invitation links: signed-in people only
+  { method: 'get', route: '/api/dev/mailbox', path: () => '/api/dev/mailbox', expect: s(401, 200, 200, 200, 200, 200) },
   { method: 'get', route: '/api/teams', path: () => '/api/teams', expect: s(401, 200, 200, 200, 200, 200) },
   {
     method: 'post', route: '/api/teams', path: () => '/api/teams',
@@ -115,26 +129,37 @@ const ROWS: Row[] = [
   },
   { method: 'get', route: '/api/studies/:studyId/run-logs', path: (c) => `/api/studies/${c.studyId}/run-logs`, expect: s(401, 200, 200, 200, 403, 404) },
   { method: 'get', route: '/api/parts/:partId/run-logs', path: (c) => `/api/parts/${c.partId}/run-logs`, expect: s(401, 200, 200, 200, 403, 404) },
+  {
+    method: 'post', route: '/api/studies/:studyId/run-logs/inspect', path: (c) => `/api/studies/${c.studyId}/run-logs/inspect`,
+    multipart: (c) => ({ fields: {}, file: { bytes: Buffer.from(c.runLogCsv(false)), name: 'job-4471.csv', type: 'text/csv' } }),
+    expect: s(401, 403, 200, 200, 403, 404),
+  },
+  {
+    method: 'post', route: '/api/studies/:studyId/run-logs', path: (c) => `/api/studies/${c.studyId}/run-logs`,
+    multipart: (c) => {
+      const csv = c.runLogCsv(true);
+      return { fields: { mapping: JSON.stringify(inspectRunLog(csv).mapping) }, file: { bytes: Buffer.from(csv), name: 'job-4472.csv', type: 'text/csv' } };
+    },
+    expect: s(401, 403, 201, 201, 403, 404),
+  },
+  { method: 'get', route: '/api/run-logs/:runLogId', path: (c) => `/api/run-logs/${c.runLogId}`, expect: s(401, 200, 200, 200, 403, 404) },
+  { method: 'get', route: '/api/run-logs/:runLogId/file', path: (c) => `/api/run-logs/${c.runLogId}/file`, expect: s(401, 200, 200, 200, 403, 404) },
+  {
+    // the seeded run log has no decision yet; the lead's is the one that lands
+    method: 'post', route: '/api/run-logs/:runLogId/review', path: (c) => `/api/run-logs/${c.runLogId}/review`,
+    body: () => ({ decision: 'use-as-is', rationale: 'Second hold ran long; cure is past the minimum and warpage inside the window.' }),
+    expect: s(401, 403, 403, 201, 403, 404),
+  },
   { method: 'get', route: '/api/invites/:token', path: async (c) => `/api/invites/${await c.inviteToken()}`, expect: s(200, 200, 200, 200, 200, 200) },
   // These two change who belongs where and who is signed in, so they run last.
+  // Each signed-in persona accepts an invitation sent to their own address
+  // (one sent to someone else is refused with 403: invites.routes.test.ts).
   {
-    method: 'post', route: '/api/invites/:token/accept', path: async (c) => `/api/invites/${await c.inviteToken()}/accept`,
+    method: 'post', route: '/api/invites/:token/accept', path: async (c, persona) => `/api/invites/${await c.inviteToken(c.emailOf[persona])}/accept`,
     expect: s(401, 200, 200, 200, 200, 200),
   },
   { method: 'post', route: '/api/auth/logout', path: () => '/api/auth/logout', expect: s(204, 204, 204, 204, 204, 204) },
 ];
-
-/**
- * Routes whose happy path needs a multipart upload or an uploaded run log;
- * their role checks (401/403/404 per persona) are asserted in the named file.
- */
-const ROLES_TESTED_ELSEWHERE: Record<string, string> = {
-  'POST /api/studies/:studyId/run-logs/inspect': 'server/routes/run-logs.routes.test.ts',
-  'POST /api/studies/:studyId/run-logs': 'server/routes/run-logs.routes.test.ts',
-  'GET /api/run-logs/:runLogId': 'server/routes/run-logs.routes.test.ts',
-  'GET /api/run-logs/:runLogId/file': 'server/routes/run-logs.routes.test.ts',
-  'POST /api/run-logs/:runLogId/review': 'server/routes/run-logs.routes.test.ts',
-};
 
 let h: Harness;
 let ctx: Ctx;
@@ -147,7 +172,7 @@ async function revisionId(studyId: number, number: number) {
 beforeAll(async () => {
   h = await startHarness();
   await resetToDemo(h.db);
-  const { Team, Study, User, Membership } = h.db.models;
+  const { Team, Study, User, Membership, Revision, Upload } = h.db.models;
   const team = (await Team.findOne({ where: { slug: 'tail-structures' } }))!;
   const study = (await Study.findOne({ where: { title: 'Two-dwell cycle for the 24-ply panel' } }))!;
   const viewer = (await User.findOne({ where: { login: 'ines.varga' } }))!;
@@ -164,17 +189,30 @@ beforeAll(async () => {
   const inviteCtx: InviteContext = { sequelize: h.db.sequelize, mailer: createMailer(h.db.config.mail), publicUrl: 'http://127.0.0.1:5180', ttlHours: 1 };
   const lead = (await User.findOne({ where: { login: 'amara.okafor' } }))!;
   let throwaway = 0;
+  const latestParams = parseStudy((await Revision.findOne({ where: { studyId: study.id, number: study.latestRevisionNumber } }))!.params);
+  let uploads = 0;
+  const emailOf = {} as Record<Persona, string>;
+  for (const persona of PERSONAS) {
+    const id = who[persona].userId;
+    emailOf[persona] = (id ? (await User.findByPk(id))!.email : null) ?? 'nobody@example.test';
+  }
   ctx = {
+    emailOf,
+    runLogId: (await Upload.findOne({ where: { kind: 'run-log', studyId: study.id } }))!.id,
+    runLogCsv: (fresh) => {
+      const start = fresh ? new Date(Date.UTC(2026, 5, 1, 6) + uploads++ * 86_400_000).toISOString().slice(0, 19) : '2026-04-02T07:10:00';
+      return demoRunLogCsv(latestParams, { start });
+    },
     teamId: team.id,
     partId: study.partId,
     studyId: study.id,
     viewerId: viewer.id,
     latest: async () => (await Study.findByPk(study.id))!.latestRevisionNumber,
-    inviteToken: async () => {
-      // the token is only in the mail; read it from the fake mailbox like a person would
-      const email = `matrix-${unique()}@example.test`;
+    inviteToken: async (to?: string) => {
+      // the token is only in the mail; read it from the fake mailbox like a person would (newest mail to that address)
+      const email = to ?? `matrix-${unique()}@example.test`;
       await createInvite(inviteCtx, { teamId: team.id, email, role: 'viewer', invitedBy: { id: lead.id, name: lead.name } });
-      const mail = h.mail.messages.find((m) => m.to.includes(email))!;
+      const mail = h.mail.messages.findLast((m) => m.to.includes(email))!;
       return mail.text.match(/\/invite\/([A-Za-z0-9_-]+)/)![1];
     },
     inviteId: async () => {
@@ -195,7 +233,14 @@ describe('role × route matrix', () => {
     it(`${row.method.toUpperCase()} ${row.route}`, async () => {
       const actual: Partial<Record<Persona, number>> = {};
       for (const persona of PERSONAS) {
-        const path = await row.path(ctx);
+        const path = await row.path(ctx, persona);
+        if (row.multipart) {
+          const { fields, file } = row.multipart(ctx);
+          let req = who[persona].agent.post(path).set('X-CSRF-Token', who[persona].csrf).set('Accept', 'application/json');
+          for (const [k, v] of Object.entries(fields)) req = req.field(k, v);
+          actual[persona] = (await req.attach('file', file.bytes, { filename: file.name, contentType: file.type })).status;
+          continue;
+        }
         const body = row.body ? await row.body(ctx) : row.method === 'get' ? undefined : {};
         const res = await call(who[persona], row.method, path, body);
         actual[persona] = res.status;
@@ -206,9 +251,11 @@ describe('role × route matrix', () => {
 
   it('covers every route the app registers', () => {
     const registered = listRoutes(h.app).sort();
-    const covered = [...ROWS.map((r) => `${r.method.toUpperCase()} ${r.route}`), ...Object.keys(ROLES_TESTED_ELSEWHERE)].sort();
-    // A new route fails here until it gets a matrix row (or names the test that checks its roles).
+    const covered = ROWS.map((r) => `${r.method.toUpperCase()} ${r.route}`).sort();
+    // A new route fails here until it gets a matrix row.
     expect(covered).toEqual(registered);
+    // routes × personas, every cell asserted above
+    expect(ROWS.length * PERSONAS.length).toBe(registered.length * 6);
   });
 });
 
