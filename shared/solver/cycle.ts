@@ -317,3 +317,24 @@ export function plannedSchedule(cycle: Cycle): { timeMin: number[]; airC: number
   }
   return { timeMin, airC, pressureBar };
 }
+
+/**
+ * The shop's temperature: where the part starts (the cycle's start, or a record's first air point) and where it
+ * is measured after demould.
+ */
+export function shopTemperatureK(cycle: Cycle): number {
+  return cToK(cycle.kind === 'segments' ? cycle.startC : cycle.points[0].airC);
+}
+
+/** Assumed cooling rate of a demoulded part in shop air when no cool segment says otherwise (common practice, no source). */
+const SHOP_COOL_RATE_C_PER_MIN = 2;
+
+/**
+ * How fast the demoulded part goes to the shop temperature: at the demould cool's rate for a segment cycle
+ * (the last segment is always a cool), at 2 °C/min after a record. Below Tg the resin barely relaxes, so the
+ * rate hardly matters; it only gives the last mechanics steps a duration.
+ */
+export function shopCoolRateKPerS(cycle: Cycle): number {
+  const last = cycle.kind === 'segments' ? cycle.segments[cycle.segments.length - 1] : undefined;
+  return cPerMinToKPerS(last && last.kind !== 'hold' ? last.rateCPerMin : SHOP_COOL_RATE_C_PER_MIN);
+}

@@ -5,7 +5,8 @@ import { parseStudy } from '../schemas/study';
 import { expectClose } from './test-support/expect-close';
 import { referenceStudy } from './demo-cards';
 import { glassTransitionK, prepareGlassTransition } from './glass-transition';
-import { createMechanics, demould, mechanicsResult, mechanicsStep, primeMechanics, resinModulusPa, type MechanicsState } from './mechanics';
+import { shopCoolRateKPerS, shopTemperatureK } from './cycle';
+import { coolToShopTemperature, createMechanics, demould, mechanicsResult, mechanicsStep, primeMechanics, resinModulusPa, type MechanicsState } from './mechanics';
 import { elasticFreeResponse, laminateGeometry, plyFreeStrainToLaminate, plyStiffness, rotateStiffness } from './laminate';
 import { plyProperties } from './micromechanics';
 
@@ -257,6 +258,70 @@ describe('mechanics: elastic and viscoelastic limits', () => {
 function ply4(p: { e1Pa: number; e2Pa: number; g12Pa: number; nu12: number }): [number, number, number, number] {
   return [p.e1Pa, p.e2Pa, p.g12Pa, p.nu12];
 }
+
+/**
+ * κx of a free [0/90]T pair of equal plies (0° at the bottom) under a uniform ΔT, by classical lamination
+ * theory written out for this layup (Hyer 1998, property set in physics.md §8): A11 = A22 = (Q11 + Q22)t,
+ * A12 = 2Q12 t, B11 = −B22 = (Q22 − Q11)t²/2, D11 = D22 = (Q11 + Q22)t³/3, D12 = 2Q12 t³/3; by symmetry
+ * ε⁰x = ε⁰y = e and κy = −κx = −k, which leaves (A11 + A12)e + B11 k = N, B11 e + (D11 − D12)k = M.
+ */
+function crossPairKx(ply: { e1: number; e2: number; nu12: number; a1: number; a2: number }, t: number, dT: number): number {
+  const d = 1 - (ply.nu12 * ply.nu12 * ply.e2) / ply.e1;
+  const q11 = ply.e1 / d;
+  const q22 = ply.e2 / d;
+  const q12 = (ply.nu12 * ply.e2) / d;
+  const a = (q11 + q22) * t + 2 * q12 * t;
+  const b = ((q22 - q11) * t * t) / 2;
+  const dd = ((q11 + q22) * t ** 3) / 3 - (2 * q12 * t ** 3) / 3;
+  const sx0 = q11 * ply.a1 + q12 * ply.a2; // σx per K of the free-strain-restrained 0° ply
+  const sx90 = q22 * ply.a2 + q12 * ply.a1; // and of the 90° ply
+  const n = t * dT * (sx0 + sx90);
+  const m = ((t * t) / 2) * dT * (sx90 - sx0);
+  return (m * a - b * n) / (a * dd - b * b);
+}
+
+describe('mechanics: shape at the shop temperature', () => {
+  it('writes out classical lamination theory for a [0/90]T pair that reproduces Hyer’s curvature', () => {
+    // κx = −10.832 1/m for ΔT = −150 K: Hyer (1998) property set, CLT (physics.md §8).
+    expectClose(crossPairKx({ e1: 155e9, e2: 12.1e9, nu12: 0.248, a1: -0.018e-6, a2: 24.3e-6 }, 0.15e-3, -150), -10.832, 5e-5);
+  });
+
+  it('bends a free unsymmetric [0/90] laminate further from demould to the shop temperature, as CLT says', () => {
+    const layup: Layup = [0, 90].map((angleDeg) => ({ angleDeg, thicknessMm: 0.15 }));
+    const params = study({ layup: { plies: layup }, constraint: 'free', tool: { kind: 'none' } });
+    const state = createMechanics(params, plyPoints(layup));
+    const alpha = 0.99;
+    const tgK = glassTransitionK(alpha, prepareGlassTransition(params.resin.glassTransition)); // ≈ 483 K
+    const stressFreeK = 423.15;
+    const demouldK = 333.15;
+    const fill = (x: number) => new Float64Array(4).fill(x);
+    // Cured and stress-free at 150 °C (points past gel are stress-free where primed), then cooled to a 60 °C
+    // demould in 1 K steps.
+    primeMechanics(state, fill(stressFreeK), fill(alpha), fill(tgK));
+    drive(state, params, Array.from({ length: 90 }, (_, i) => ({ TK: stressFreeK - (i + 1), alpha, tgK, dtS: 0.01 })));
+    const atDemould = mechanicsResult(state, params).curvature.kx;
+    const TK = fill(demouldK);
+    const shopK = shopTemperatureK(params.cycle);
+    coolToShopTemperature(state, TK, fill(alpha), fill(tgK), shopK, shopCoolRateKPerS(params.cycle));
+    expect(Array.from(TK)).toEqual([shopK, shopK, shopK, shopK]);
+    const atShop = mechanicsResult(state, params).curvature.kx;
+    expect(Math.abs(atShop)).toBeGreaterThan(Math.abs(atDemould));
+    // The elastic reference with the glassy ply from micromechanics (tested against the rule of mixtures and
+    // Schapery in micromechanics.test.ts), ΔT from the stress-free 150 °C. Tolerance 1e-4: the path is linear
+    // elastic up to relaxation, and far below Tg (≈ 210 °C) the resin hardly relaxes: the shortest Prony time
+    // (1 s) is shifted by a ≈ 7e3 at 150 °C and by a > 1e12 below 60 °C, so over these steps Δξ/τ < 1e-5.
+    const m = params.resin.modulus;
+    const f = params.fibre;
+    const ply = plyProperties(
+      { e1Pa: f.e1GPa * 1e9, e2Pa: f.e2GPa * 1e9, g12Pa: f.g12GPa * 1e9, nu12: f.nu12, nu23: f.nu23 ?? f.nu12, cte1PerK: f.cte1MicroPerK * 1e-6, cte2PerK: f.cte2MicroPerK * 1e-6 },
+      { ePa: m.unrelaxedGPa * 1e9, nu: m.poisson, ctePerK: params.resin.cteMicroPerK * 1e-6 },
+      params.fibreVolumeFraction,
+    );
+    const glassy = { e1: ply.e1Pa, e2: ply.e2Pa, nu12: ply.nu12, a1: ply.cte1PerK, a2: ply.cte2PerK };
+    expectClose(atDemould, crossPairKx(glassy, 0.15e-3, demouldK - stressFreeK), 1e-4);
+    expectClose(atShop, crossPairKx(glassy, 0.15e-3, shopK - stressFreeK), 1e-4);
+  });
+});
 
 describe('mechanics input', () => {
   it('refuses integration points that do not match the layup, naming the field', () => {

@@ -12,6 +12,7 @@
 
 import type { StudyParams } from '../schemas/study';
 import { cToK, degToRad, gpaToPa, microPerKToPerK, mmToM, mToMm } from '../units';
+import { shopTemperatureK } from './cycle';
 import { laminateEffectiveFreeStrain, springInDeg, stripWarpageM, type ThroughThicknessPly } from './distortion';
 import {
   createIncrementalLaminate,
@@ -88,10 +89,6 @@ function fibreSI(f: StudyParams['fibre']): FibreSI {
   };
 }
 
-function startTemperatureK(cycle: StudyParams['cycle']): number {
-  return cToK(cycle.kind === 'segments' ? cycle.startC : cycle.points[0].airC);
-}
-
 /**
  * Allocate the mechanics of one simulation. `plyPointZM` are the integration points' heights from the laminate
  * bottom (two per ply, bottom then top face); they must match the layup.
@@ -136,7 +133,7 @@ export function createMechanics(params: MechanicsInput, plyPointZM: Float64Array
   let midPoint = 0;
   for (let p = 1; p < points; p++) if (Math.abs(geometry.pointZM[p]) < Math.abs(geometry.pointZM[midPoint]) - 1e-15) midPoint = p;
   // Until the loop says otherwise the part starts uniform at the cycle's start temperature, uncured.
-  const t0 = startTemperatureK(params.cycle);
+  const t0 = shopTemperatureK(params.cycle);
   const tg0 = cToK(params.resin.glassTransition.tg0C);
   const state: MechanicsState = {
     resin,
@@ -307,6 +304,31 @@ export function demould(state: MechanicsState, TK: Float64Array, alpha: Float64A
   if (!state.held || state.released) return;
   state.released = true;
   mechanicsStep(state, TK, alpha, tgK, 0);
+}
+
+/** Largest temperature change per step of the cool-down after demould, K (the free-strain coefficients follow
+ * the resin's state per step; below Tg they barely change, so a few steps suffice). */
+const SHOP_COOL_STEP_K = 10;
+
+/**
+ * After demould the part goes to the shop temperature, where it is measured: free (a tool-held part has been
+ * released by `demould`), uniform at the end, no cure change, at `rateKPerS`. `TK` holds the point values at
+ * demould and is overwritten (it ends uniform at `shopK`); `alpha` and `tgK` stay. Radford–Diefendorf's ΔT and
+ * the curvature then run from each point's stress-free (gel) state to the shop temperature.
+ */
+export function coolToShopTemperature(
+  state: MechanicsState, TK: Float64Array, alpha: Float64Array, tgK: Float64Array, shopK: number, rateKPerS: number,
+): void {
+  const start = Float64Array.from(TK);
+  let span = 0;
+  for (let p = 0; p < start.length; p++) span = Math.max(span, Math.abs(shopK - start[p]));
+  const steps = Math.max(1, Math.ceil(span / SHOP_COOL_STEP_K));
+  const dtS = span / steps / rateKPerS;
+  for (let k = 1; k <= steps; k++) {
+    const f = k / steps;
+    for (let p = 0; p < start.length; p++) TK[p] = k === steps ? shopK : start[p] + f * (shopK - start[p]);
+    mechanicsStep(state, TK, alpha, tgK, dtS);
+  }
 }
 
 /** Resin modulus for the history plot at one point's state (see apparentResinModulusPa). */

@@ -64,8 +64,9 @@ describe('metrics tracker', () => {
     const limits = { ...referenceStudy().limits, minFinalCure: 0.9 };
     const s = summarize({
       tracker: tr, finalAlpha: new Float64Array([0.95, 0.85, 0.9]), offset: 0, demouldS: 600, steps: 1,
-      warpageMm: -0.4, springInDeg: 2, adiabaticRiseK: 100, limits, warnings: [],
+      warpageMm: -0.4, springInDeg: 2, shapeAtK: 293.15, adiabaticRiseK: 100, limits, warnings: [],
     });
+    expect(s.shapeAtC).toBeCloseTo(20, 9); // 293.15 K = 20 °C by definition
     expect(s.finalCureMin).toBe(0.85);
     expect(s.finalCureMinZMm).toBeCloseTo(1, 12);
     const byKey = Object.fromEntries(s.limits.map((l) => [l.key, l]));

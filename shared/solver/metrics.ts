@@ -32,6 +32,9 @@ export interface StudySummary {
   maxCoolRateCPerMin: number;
   warpageMm: number;
   springInDeg: number;
+  /** temperature at which warpage, spring-in, curvature and ply stresses are reported: the shop temperature
+   * the demoulded part cools to (the cycle's start, or a record's first air point), °C */
+  shapeAtC: number;
   cycleMin: number;
   adiabaticRiseC: number;
   gelTimeMin: number;
@@ -194,6 +197,8 @@ export interface SummaryInputs {
   steps: number;
   warpageMm: number;
   springInDeg: number;
+  /** temperature the shape is reported at, K */
+  shapeAtK: number;
   adiabaticRiseK: number;
   limits: Limits;
   warnings: string[];
@@ -237,6 +242,7 @@ export function summarize(s: SummaryInputs): StudySummary {
     maxCoolRateCPerMin: tr.maxCoolRateKPerS * 60,
     warpageMm: finite(s.warpageMm),
     springInDeg: finite(s.springInDeg),
+    shapeAtC: kToC(s.shapeAtK),
     cycleMin: demouldMin,
     adiabaticRiseC: finite(s.adiabaticRiseK),
     gelTimeMin: minOrNever(earliest(tr.gelTimeS)),

@@ -60,6 +60,8 @@ describe('simulate: the reference study', () => {
     // (closed form: 100/2 + 90 + 60/1.5 + 120 + 120/2 = 360 min)
     expect(r.summary.cycleMin).toBeGreaterThanOrEqual(360 - 1e-9);
     expect(r.summary.finalCureMin).toBeGreaterThan(0.8);
+    // the shape is reported at the shop temperature, the cycle's 20 °C start (not the 60 °C demould)
+    expect(r.summary.shapeAtC).toBeCloseTo(20, 9);
     expect(r.summary.limits.map((l) => l.key)).toEqual([
       'minFinalCure', 'maxOvershootC', 'maxGradientC', 'maxHeatRateCPerMin', 'maxCoolRateCPerMin', 'maxWarpageMm', 'maxSpringInDeg', 'maxCycleMin',
     ]);

@@ -1,7 +1,7 @@
 import { StudyInputError, validateStudy, type StudyParamsInput } from '../schemas/study';
 import { glassTransitionK } from './glass-transition';
-import { advanceCycle, airAt, airRateKPerS, createCycleState, nextEventS, prepareCycle, scheduledDurationS, TIME_EPS_S } from './cycle';
-import { createMechanics, demould, mechanicsResult, mechanicsStep, primeMechanics, resinModulusPa } from './mechanics';
+import { advanceCycle, airAt, airRateKPerS, createCycleState, nextEventS, prepareCycle, scheduledDurationS, shopCoolRateKPerS, shopTemperatureK, TIME_EPS_S } from './cycle';
+import { coolToShopTemperature, createMechanics, demould, mechanicsResult, mechanicsStep, primeMechanics, resinModulusPa } from './mechanics';
 import { createMetricsTracker, observeStep, summarize } from './metrics';
 import { DEFAULT_STEP_LIMITS, type SimulateOptions, type SimulationResult, type StepLimits } from './simulation-result';
 import { cureRate } from './kinetics';
@@ -14,7 +14,7 @@ export { DEFAULT_STEP_LIMITS, PREVIEW_STEP_LIMITS } from './simulation-result';
 // laminate equilibrium, step by step, with histories recorded and metrics tracked on the way. Everything is
 // allocated once per simulation (history buffers grow by doubling, a handful of times per run), never per step.
 
-export const MODEL_VERSION = 'dwellform-solver 1.0.0';
+export const MODEL_VERSION = 'dwellform-solver 1.1.0'; // 1.1: shape reported at the shop temperature, not at demould
 
 /** Far more steps than any valid study needs; reaching it means the step control has failed. */
 const MAX_STEPS = 5_000_000;
@@ -205,8 +205,12 @@ export function simulate(input: StudyParamsInput, options: SimulateOptions = {})
     advanceCycle(program, cycle, t, minT, maxT);
   }
 
-  // --- demould and results ---
+  // --- demould, cool to the shop temperature, results ---
+  // The cycle ends at demould; the shape is measured later, on the shop floor: the released part cools to the
+  // shop temperature first, and that last ΔT bends an unsymmetric part and closes a corner further.
   demould(mech, pointT, pointAlpha, pointTg);
+  const shopK = shopTemperatureK(params.cycle);
+  coolToShopTemperature(mech, pointT, pointAlpha, pointTg, shopK, shopCoolRateKPerS(params.cycle));
   const mr = mechanicsResult(mech, params);
   const warnings: string[] = [];
   if (program.kind === 'segments') {
@@ -228,6 +232,7 @@ export function simulate(input: StudyParamsInput, options: SimulateOptions = {})
     steps,
     warpageMm: mr.warpageMm,
     springInDeg: mr.springInDeg,
+    shapeAtK: shopK,
     adiabaticRiseK: adiabaticTemperatureRiseK(params),
     limits: params.limits,
     warnings,

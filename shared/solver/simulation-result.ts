@@ -27,9 +27,9 @@ export interface SimulationResult {
   profiles: { zM: Float64Array; temperatureK: Float64Array; alpha: Float64Array };
   /** per laminate node; −1 where never reached */
   nodes: { zM: Float64Array; gelTimeS: Float64Array; vitrificationTimeS: Float64Array };
-  /** 2 points per ply: bottom then top, bottom ply first */
+  /** 2 points per ply: bottom then top, bottom ply first; after demould, at the shop temperature (summary.shapeAtC) */
   plyStresses: { zM: Float64Array; plyIndex: Int32Array; sigma1Pa: Float64Array; sigma2Pa: Float64Array; tau12Pa: Float64Array };
-  /** 1/m, after demould */
+  /** 1/m, after demould, at the shop temperature (summary.shapeAtC), like plyStresses */
   curvature: { kx: number; ky: number; kxy: number };
   /** segment start times, then the demould time, s */
   segmentBoundsS: Float64Array;
