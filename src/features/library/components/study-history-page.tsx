@@ -5,6 +5,7 @@ import { useForkFromRevision, useRestoreRevision } from '../api/revision-actions
 import { usePinBaseline } from '../api/pin-baseline';
 import { SummaryFigures } from './summary-figures';
 import { fmtTime } from '../../../lib/format-time';
+import { formatRevisionRef } from '../../../lib/revision-query';
 import { Loading, QueryError } from '../../../components/ui/query-state';
 
 function PinForm({ partId, revision, onDone }: { partId: number; revision: RevisionEntry; onDone: () => void }) {
@@ -25,6 +26,37 @@ function PinForm({ partId, revision, onDone }: { partId: number; revision: Revis
       <button type="submit" className="rounded bg-ink px-2 py-0.5 text-sm text-paper" disabled={pin.isPending}>Pin r{revision.number}</button>
       {pin.isError && <span role="alert" className="text-sm text-fault">{pin.error.message}</span>}
     </form>
+  );
+}
+
+/**
+ * Links that name this one revision, so they can be shared: open it (read-only unless it is the latest), its
+ * printable report, and the comparison with the revision before it and with the part's pinned baseline.
+ */
+function RevisionLinks({ studyId, number, latest, baseline }: { studyId: number; number: number; latest: number; baseline: boolean }) {
+  const ref = formatRevisionRef({ source: 'library', studyId, number });
+  const previous = formatRevisionRef({ source: 'library', studyId, number: number - 1 });
+  const link = 'text-slate underline';
+  return (
+    <>
+      <Link className={link} to={number === latest ? `/studies/${studyId}` : `/studies/${studyId}?r=${number}`}>
+        Open r{number}
+      </Link>
+      <Link className={link} to={`/report?r=${ref}`}>
+        Report
+      </Link>
+      {number > 1 && (
+        <Link className={link} to={`/compare?a=${previous}&b=${ref}`}>
+          Compare with r{number - 1}
+        </Link>
+      )}
+      {/* With B alone the compare view takes the part's pinned baseline as A. */}
+      {baseline && (
+        <Link className={link} to={`/compare?b=${ref}`}>
+          Compare with baseline
+        </Link>
+      )}
+    </>
   );
 }
 
@@ -71,6 +103,7 @@ export function StudyHistoryPage() {
             </div>
             <div className="mt-1"><SummaryFigures summary={r.summary} /></div>
             <div className="mt-2 flex flex-wrap gap-3 text-sm">
+              <RevisionLinks studyId={s.id} number={r.number} latest={s.latestRevisionNumber} baseline={!!s.part?.baselineRevisionId && s.part.baselineRevisionId !== r.id} />
               {canWrite && (
                 <button
                   type="button"

@@ -1,11 +1,12 @@
 import { memo, useEffect, useLayoutEffect, useMemo, useRef } from 'react';
-import { Link, useParams } from 'react-router-dom';
+import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
 import { ApiError } from '../../../lib/api-client';
 import { Panel } from '../../../components/ui/panel';
 import { TimeAxisProvider, makeTimeAxis, niceCycleEnd } from '../../../components/charts/time-axis';
 import { useElementWidth } from '../../../hooks/use-element-width';
-import { studyQueryOptions, useStudy, type WorkspaceStudy } from '../api/get-study';
+import { revisionParam, studyQueryOptions, useStudy, type WorkspaceStudy } from '../api/get-study';
+import { RevisionBanner } from './revision-banner';
 import { cycleEndMin, cycleSpans } from '../model/cycle-geometry';
 import { useLiveSolve } from '../hooks/use-live-solve';
 import { useUndoKeys } from '../hooks/use-undo-keys';
@@ -31,7 +32,15 @@ function loadIntoEditor(study: WorkspaceStudy) {
   resultsStore.getState().reset();
   studyEditorStore
     .getState()
-    .load({ studyId: study.id, name: study.title, baseRevision: study.latestRevisionNumber }, study.params);
+    .load(
+      {
+        studyId: study.id,
+        name: study.title,
+        baseRevision: study.viewingRevision ?? study.latestRevisionNumber,
+        readOnly: study.viewingRevision !== null,
+      },
+      study.params,
+    );
 }
 
 /** One time axis for the editor and every lane: the longer of the drawn cycle and the solved one, held while dragging. */
@@ -121,10 +130,14 @@ function Workspace({ study, onReload }: { study: WorkspaceStudy; onReload: () =>
   useUndoKeys();
   useLeaveGuard();
   const canWrite = study.role === 'engineer' || study.role === 'lead';
+  const viewing = study.viewingRevision;
 
   return (
     <div className="flex min-h-full flex-col" data-testid="workspace">
-      <WorkspaceToolbar offline={study.offline} canWrite={canWrite} onReload={onReload} />
+      {viewing !== null && study.latestRevisionNumber !== null && (
+        <RevisionBanner studyId={study.id} revision={viewing} latest={study.latestRevisionNumber} canWrite={canWrite} />
+      )}
+      <WorkspaceToolbar offline={study.offline} canWrite={canWrite && viewing === null} onReload={onReload} />
       <div className="grid flex-1 grid-cols-1 lg:grid-cols-[20rem_minmax(0,1fr)] 2xl:grid-cols-[20rem_minmax(0,1fr)_22rem]">
         <SetupColumn />
         <section aria-label="Cure cycle and results over time" className="min-w-0">
@@ -159,16 +172,20 @@ function Workspace({ study, onReload }: { study: WorkspaceStudy; onReload: () =>
 /** The study workspace at /studies/:studyId. */
 export function WorkspacePage() {
   const { studyId = '' } = useParams();
-  const query = useStudy(studyId);
+  const [search] = useSearchParams();
+  const revision = revisionParam(search.get('r'));
+  const query = useStudy(studyId, revision);
   const queryClient = useQueryClient();
   const loadedFor = useStudyEditor((s) => s.meta?.studyId ?? null);
+  const loadedRevision = useStudyEditor((s) => s.meta?.baseRevision ?? null);
+  const loadedReadOnly = useStudyEditor((s) => !!s.meta?.readOnly);
 
   useEffect(() => {
     if (query.data) loadIntoEditor(query.data);
   }, [query.data]);
 
   async function reload() {
-    const fresh = await queryClient.fetchQuery({ ...studyQueryOptions(studyId), staleTime: 0 });
+    const fresh = await queryClient.fetchQuery({ ...studyQueryOptions(studyId, revision), staleTime: 0 });
     loadIntoEditor(fresh);
   }
 
@@ -179,7 +196,7 @@ export function WorkspacePage() {
       return (
         <div className="p-6">
           <p className="mb-2">Sign in to open this study.</p>
-          <a className="text-slate underline" href={`/api/auth/github?next=${encodeURIComponent(`/studies/${studyId}`)}`}>
+          <a className="text-slate underline" href={`/api/auth/github?next=${encodeURIComponent(`/studies/${studyId}${revision ? `?r=${revision}` : ''}`)}`}>
             Sign in
           </a>
           <p className="mt-4 text-sm text-ink-soft">
@@ -194,6 +211,9 @@ export function WorkspacePage() {
       </p>
     );
   }
-  if (loadedFor !== query.data.id) return <p className="p-6 text-ink-soft">Opening the study…</p>;
+  // Wait until the editor holds what the URL names (a read-only revision, or the latest for editing).
+  const viewing = query.data.viewingRevision;
+  const loaded = loadedFor === query.data.id && (viewing === null ? !loadedReadOnly : loadedReadOnly && loadedRevision === viewing);
+  if (!loaded) return <p className="p-6 text-ink-soft">Opening the study…</p>;
   return <Workspace study={query.data} onReload={() => void reload()} />;
 }

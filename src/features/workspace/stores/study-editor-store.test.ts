@@ -122,4 +122,13 @@ describe('study editor store', () => {
     store.getState().edit('same', (d) => void (d.geometry.cornerAngleDeg = angle));
     expect(store.getState().past).toHaveLength(0);
   });
+
+  it('refuses every edit of an earlier revision opened read-only', () => {
+    const store = createStudyEditorStore();
+    store.getState().load({ studyId: 's', name: 'n', baseRevision: 2, readOnly: true }, referenceStudy());
+    const before = store.getState().params;
+    store.getState().edit('a', (d) => void (d.geometry.cornerAngleDeg = 80));
+    expect(store.getState().params).toBe(before);
+    expect(store.getState().past).toHaveLength(0);
+  });
 });

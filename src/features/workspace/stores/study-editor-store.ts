@@ -28,6 +28,8 @@ export type StudyMeta = {
   name: string;
   /** the revision this edit session started from; the base of the next save (null: never saved) */
   baseRevision: number | null;
+  /** an earlier revision opened to look at: edits are refused (restore it as a new revision to change it) */
+  readOnly?: boolean;
 };
 
 export type EditOptions = {
@@ -78,8 +80,8 @@ export function createStudyEditorStore(now: () => number = () => Date.now()) {
     },
 
     edit(label, recipe, options = {}) {
-      const { params, past, savedId } = get();
-      if (!params) return;
+      const { meta, params, past, savedId } = get();
+      if (!params || meta?.readOnly) return;
       const [next, patches, inverse] = produceWithPatches(params, recipe);
       if (patches.length === 0) return;
       const inputSeq = markInput();
