@@ -115,6 +115,23 @@ describe('invitations', () => {
     expect(mail.text).toContain(`${day} at ${hhmm} UTC`);
   });
 
+  it('lets a site admin create a team and invite its first lead, who then manages it', async () => {
+    const admin = await signIn(h, 'site.admin');
+    const created = await call(admin, 'post', '/api/teams', { slug: 'nacelle-cell', name: 'Nacelle Cell', leadEmail: newPerson.email }).expect(201);
+    expect(created.body.leadInvite).toMatchObject({ email: newPerson.email, role: 'lead', mailStatus: 'sent' });
+    // the admin sees the team, its (empty) members and invitations, but not its studies
+    await call(admin, 'get', `/api/teams/${created.body.id}/members`).expect(200);
+    await call(admin, 'get', `/api/teams/${created.body.id}`).expect(403);
+    const token = await linkFromMailbox(newPerson.email);
+    const newLead = await signIn(h, newPerson);
+    await call(newLead, 'post', `/api/invites/${token}/accept`).expect(200);
+    await call(newLead, 'post', `/api/teams/${created.body.id}/invites`, { email: 'second@example.test', role: 'engineer' }).expect(201);
+    const audit = await call(admin, 'get', `/api/teams/${created.body.id}/audit`).expect(200);
+    expect(audit.body.map((e: { sentence: string }) => e.sentence)).toEqual(
+      expect.arrayContaining(['created the team Nacelle Cell', `invited ${newPerson.email} as lead`]),
+    );
+  });
+
   it('shows the caught mails to signed-in people only', async () => {
     await (await anonymous(h.app)).agent.get('/api/dev/mailbox').expect(401);
   });

@@ -1,11 +1,13 @@
 import { Router, type Request } from 'express';
-import type { Sequelize } from 'sequelize';
+import { Op, type Sequelize } from 'sequelize';
 import { currentUser, requireTeamRole } from '../auth/access';
 import { Part, Revision, Study, User } from '../models/index';
 import { badRequest } from '../middleware/http-error';
 import { recordAudit } from '../services/audit.service';
 import { createStudy } from '../services/study.service';
 import { baselineView } from './teams.routes';
+import { auditEvents } from '../services/audit-view';
+import { forkOrigins } from '../services/fork-origin';
 import { createStudyBody, idParam, pinBaselineBody } from './request-schemas';
 import { cachedTeamOf, partTeamCache } from '../services/read-caches';
 
@@ -14,6 +16,22 @@ export const teamOfPart = async (req: Request) => {
   if (!id) return null;
   return cachedTeamOf(partTeamCache, id, async () => (await Part.findByPk(id, { attributes: ['teamId'] }))?.teamId ?? null);
 };
+
+/** The part's own history: its baseline pins, and the studies, run logs and review decisions under it. */
+async function partHistory(part: Part, studyIds: number[]) {
+  const events = await auditEvents(
+    {
+      teamId: part.teamId,
+      [Op.or]: [
+        { subjectType: 'part', subjectId: part.id },
+        { action: { [Op.in]: ['run-log.upload', 'review.decide', 'study.create', 'study.fork'] } },
+      ],
+    },
+    300,
+  );
+  const ofPart = new Set(studyIds);
+  return events.filter((e) => (e.subjectType === 'part' && e.subjectId === part.id) || (e.studyId !== null && ofPart.has(e.studyId))).slice(0, 50);
+}
 
 export function partRoutes(sequelize: Sequelize): Router {
   const router = Router();
@@ -25,6 +43,7 @@ export function partRoutes(sequelize: Sequelize): Router {
       include: [{ model: User, as: 'owner', attributes: ['id', 'login', 'name'] }],
       order: [['updatedAt', 'DESC']],
     });
+    const origins = await forkOrigins(studies);
     res.json({
       id: part.id,
       teamId: part.teamId,
@@ -40,10 +59,12 @@ export function partRoutes(sequelize: Sequelize): Router {
           title: s.title,
           latestRevisionNumber: s.latestRevisionNumber,
           forkedFromRevisionId: s.forkedFromRevisionId,
+          forkedFrom: origins.get(s.id) ?? null,
           updatedAt: s.updatedAt,
           owner: owner ? { id: owner.id, login: owner.login, name: owner.name } : null,
         };
       }),
+      history: await partHistory(part, studies.map((s) => s.id)),
     });
   });
 
@@ -68,7 +89,18 @@ export function partRoutes(sequelize: Sequelize): Router {
     if (!revision || (revision as Revision & { study: Study }).study.partId !== part.id) {
       throw badRequest(`Invalid revisionId: revision ${body.revisionId} is not a revision of a study of this part.`, { field: 'revisionId' });
     }
-    const previous = { revisionId: part.baselineRevisionId, note: part.baselineNote };
+    // the replaced pin is kept, with names, in the event itself
+    const old = part.baselineRevisionId
+      ? await Revision.findByPk(part.baselineRevisionId, { attributes: ['id', 'studyId', 'number'], include: [{ model: Study, as: 'study', attributes: ['title'] }] })
+      : null;
+    const previous = {
+      revisionId: part.baselineRevisionId,
+      studyId: old?.studyId ?? null,
+      studyTitle: (old as (Revision & { study?: Study }) | null)?.study?.title ?? null,
+      number: old?.number ?? null,
+      note: part.baselineNote,
+    };
+    const pinnedStudy = await Study.findByPk(revision.studyId, { attributes: ['title'] });
     const user = currentUser(req);
     await sequelize.transaction(async (transaction) => {
       await part.update({ baselineRevisionId: revision.id, baselineNote: body.note, baselinePinnedBy: user.id, baselinePinnedAt: new Date() }, { transaction });
@@ -79,7 +111,16 @@ export function partRoutes(sequelize: Sequelize): Router {
           action: 'baseline.pin',
           subjectType: 'part',
           subjectId: part.id,
-          details: { revisionId: revision.id, studyId: revision.studyId, number: revision.number, note: body.note, previous },
+          details: {
+            revisionId: revision.id,
+            studyId: revision.studyId,
+            studyTitle: pinnedStudy?.title ?? null,
+            number: revision.number,
+            partNumber: part.partNumber,
+            partName: part.name,
+            note: body.note,
+            previous,
+          },
         },
         transaction,
       );

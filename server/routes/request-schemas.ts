@@ -32,6 +32,8 @@ export const createTeamBody = z.object({
   slug: z.string().regex(/^[a-z0-9][a-z0-9-]{1,62}$/, { error: 'lowercase letters, digits and dashes, 2–63 characters' }),
   name: title,
   description: z.string().max(2000).optional(),
+  /** a new team's first lead, invited by e-mail in the same step */
+  leadEmail: z.email({ error: 'must be an e-mail address' }).max(254).optional(),
 });
 
 /** A positive integer id from the URL, or null (which the routes answer with 404). */

@@ -157,6 +157,13 @@ describe('forks', () => {
     expect(fork.body.latest.params).toEqual(source.body.params);
     // the source study is unchanged
     expect((await h.db.models.Study.findByPk(studyId))!.latestRevisionNumber).toBe(2);
+    // the origin shows on the part page and the team home, with the source revision's author
+    const origin = { studyId, studyTitle: 'Two-dwell cycle for the 24-ply panel', number: 2, author: { name: source.body.author.name } };
+    const part = await call(viewer, 'get', `/api/parts/${partId}`).expect(200);
+    expect(part.body.studies.find((s: { id: number }) => s.id === res.body.id).forkedFrom).toMatchObject(origin);
+    const home = await call(viewer, 'get', `/api/teams/${fork.body.teamId}`).expect(200);
+    expect(home.body.recentStudies.find((s: { id: number }) => s.id === res.body.id).forkedFrom).toMatchObject(origin);
+    expect(fork.body.links).toEqual({ history: `/studies/${res.body.id}/history`, part: `/parts/${partId}`, forkedFrom: `/studies/${studyId}/history` });
   });
 
   it('refuses a fork into a team where the user is only a viewer', async () => {
@@ -185,6 +192,29 @@ describe('baselines', () => {
     const pin = audit.body.find((e: { action: string }) => e.action === 'baseline.pin');
     expect(pin.details).toMatchObject({ revisionId: r1.id, note: 'Back to the shop sheet for the trial lot' });
     expect(pin.details.previous.revisionId).not.toBe(r1.id);
+  });
+
+  it('writes the pin as one sentence with names, keeping the replaced pin, on the team trail, team home and part history', async () => {
+    const before = (await h.db.models.Part.findByPk(partId))!;
+    const old = (await h.db.models.Revision.findByPk(before.baselineRevisionId!))!;
+    const oldStudy = (await h.db.models.Study.findByPk(old.studyId))!;
+    const r1 = (await h.db.models.Revision.findOne({ where: { studyId, number: 1 } }))!;
+    await call(lead, 'put', `/api/parts/${partId}/baseline`, { revisionId: r1.id, note: 'Trial lot' }).expect(200);
+    const want = `pinned “Two-dwell cycle for the 24-ply panel” r1 as baseline of ${before.partNumber} · ${before.name} (was “${oldStudy.title}” r${old.number})`;
+    const audit = await call(lead, 'get', `/api/teams/${before.teamId}/audit`).expect(200);
+    expect(audit.body[0]).toMatchObject({ action: 'baseline.pin', sentence: want, actor: { name: 'Amara Okafor' } });
+    expect(audit.body[0].details.previous).toMatchObject({ revisionId: old.id, studyTitle: oldStudy.title, number: old.number });
+    const home = await call(viewer, 'get', `/api/teams/${before.teamId}`).expect(200);
+    expect(home.body.activity[0].sentence).toBe(want);
+    const part = await call(viewer, 'get', `/api/parts/${partId}`).expect(200);
+    expect(part.body.history.map((e: { sentence: string }) => e.sentence)).toContain(want);
+  });
+
+  it('names the member and both roles when a lead changes a role', async () => {
+    const team = (await h.db.models.Team.findOne({ where: { slug: 'tail-structures' } }))!;
+    await call(lead, 'patch', `/api/teams/${team.id}/members/${viewer.userId}`, { role: 'engineer' }).expect(200);
+    const audit = await call(lead, 'get', `/api/teams/${team.id}/audit`).expect(200);
+    expect(audit.body[0].sentence).toBe("changed Ines Varga's role from viewer to engineer");
   });
 
   it('refuses a pin without a note, or of a revision from another part', async () => {

@@ -1,9 +1,11 @@
 import { Router, type Request } from 'express';
 import { Op, type Sequelize } from 'sequelize';
 import { currentUser, requireAdmin, requireTeamRole, requireUser } from '../auth/access';
-import { AuditEvent, Invite, Membership, Part, Revision, Study, Team, User } from '../models/index';
+import { Invite, Membership, Part, Revision, Study, Team, User } from '../models/index';
 import { HttpError, notFound } from '../middleware/http-error';
 import { recordAudit } from '../services/audit.service';
+import { auditEvents } from '../services/audit-view';
+import { forkOrigins } from '../services/fork-origin';
 import { createInvite, inviteView, resendInvite, type InviteContext } from '../services/invite.service';
 import { createPartBody, createTeamBody, idParam, inviteBody, roleBody } from './request-schemas';
 
@@ -58,10 +60,13 @@ export function teamRoutes(sequelize: Sequelize, inviteCtx: InviteContext): Rout
     if (await Team.count({ where: { slug: body.slug } })) throw new HttpError(409, `A team with slug '${body.slug}' exists.`, { field: 'slug' });
     const team = await sequelize.transaction(async (transaction) => {
       const t = await Team.create({ slug: body.slug, name: body.name, description: body.description ?? null }, { transaction });
-      await recordAudit({ teamId: t.id, actorId: currentUser(req).id, action: 'team.create', subjectType: 'team', subjectId: t.id, details: { slug: t.slug } }, transaction);
+      await recordAudit({ teamId: t.id, actorId: currentUser(req).id, action: 'team.create', subjectType: 'team', subjectId: t.id, details: { slug: t.slug, name: t.name } }, transaction);
       return t;
     });
-    res.status(201).json({ id: team.id, slug: team.slug, name: team.name, description: team.description });
+    // A team starts with no members; the admin names its first lead, who joins through the mailed link.
+    const user = currentUser(req);
+    const invite = body.leadEmail ? await createInvite(inviteCtx, { teamId: team.id, email: body.leadEmail, role: 'lead', invitedBy: { id: user.id, name: user.name } }) : null;
+    res.status(201).json({ id: team.id, slug: team.slug, name: team.name, description: team.description, leadInvite: invite ? inviteView(invite) : null });
   });
 
   router.get('/teams/:teamId', canRead, async (req, res) => {
@@ -88,6 +93,9 @@ export function teamRoutes(sequelize: Sequelize, inviteCtx: InviteContext): Rout
       order: [['createdAt', 'DESC'], ['id', 'DESC']],
       limit: 10,
     });
+    const origins = await forkOrigins(recentStudies);
+    // who changed what: every audited kind (saves, forks, pins, roles, invitations, uploads, reviews)
+    const activity = await auditEvents({ teamId, action: { [Op.ne]: 'seed.demo' } }, 15);
     res.json({
       team: { id: team.id, slug: team.slug, name: team.name, description: team.description },
       role: req.teamAccess!.role,
@@ -109,6 +117,7 @@ export function teamRoutes(sequelize: Sequelize, inviteCtx: InviteContext): Rout
           latestRevisionNumber: x.latestRevisionNumber,
           updatedAt: x.updatedAt,
           forkedFromRevisionId: x.forkedFromRevisionId,
+          forkedFrom: origins.get(x.id) ?? null,
           owner: person(x.owner),
           part: x.part ? { id: x.part.id, partNumber: x.part.partNumber, name: x.part.name } : null,
         };
@@ -126,6 +135,7 @@ export function teamRoutes(sequelize: Sequelize, inviteCtx: InviteContext): Rout
           author: person(x.author),
         };
       }),
+      activity,
     });
   });
 
@@ -145,7 +155,7 @@ export function teamRoutes(sequelize: Sequelize, inviteCtx: InviteContext): Rout
         { teamId, partNumber: body.partNumber, name: body.name, description: body.description ?? null, baselineRevisionId: null, baselineNote: null, baselinePinnedBy: null, baselinePinnedAt: null },
         { transaction },
       );
-      await recordAudit({ teamId, actorId: currentUser(req).id, action: 'part.create', subjectType: 'part', subjectId: p.id, details: { partNumber: p.partNumber } }, transaction);
+      await recordAudit({ teamId, actorId: currentUser(req).id, action: 'part.create', subjectType: 'part', subjectId: p.id, details: { partNumber: p.partNumber, partName: p.name } }, transaction);
       return p;
     });
     res.status(201).json({ id: part.id, partNumber: part.partNumber, name: part.name, description: part.description, baselineRevisionId: null });
@@ -174,9 +184,10 @@ export function teamRoutes(sequelize: Sequelize, inviteCtx: InviteContext): Rout
       throw new HttpError(409, 'A team keeps at least one lead; make someone else lead first.');
     }
     const from = membership.role;
+    const member = await User.findByPk(membership.userId, { attributes: ['name'] });
     await sequelize.transaction(async (transaction) => {
       await membership.update({ role }, { transaction });
-      await recordAudit({ teamId, actorId: currentUser(req).id, action: 'member.role', subjectType: 'membership', subjectId: membership.id, details: { userId: membership.userId, from, to: role } }, transaction);
+      await recordAudit({ teamId, actorId: currentUser(req).id, action: 'member.role', subjectType: 'membership', subjectId: membership.id, details: { userId: membership.userId, userName: member?.name ?? null, from, to: role } }, transaction);
     });
     res.json({ userId: membership.userId, role });
   });
@@ -188,9 +199,10 @@ export function teamRoutes(sequelize: Sequelize, inviteCtx: InviteContext): Rout
     if (membership.role === 'lead' && (await Membership.count({ where: { teamId, role: 'lead' } })) === 1) {
       throw new HttpError(409, 'A team keeps at least one lead; make someone else lead first.');
     }
+    const member = await User.findByPk(membership.userId, { attributes: ['name'] });
     await sequelize.transaction(async (transaction) => {
       await membership.destroy({ transaction });
-      await recordAudit({ teamId, actorId: currentUser(req).id, action: 'member.remove', subjectType: 'membership', subjectId: membership.id, details: { userId: membership.userId, role: membership.role } }, transaction);
+      await recordAudit({ teamId, actorId: currentUser(req).id, action: 'member.remove', subjectType: 'membership', subjectId: membership.id, details: { userId: membership.userId, userName: member?.name ?? null, role: membership.role } }, transaction);
     });
     res.status(204).end();
   });
@@ -215,23 +227,7 @@ export function teamRoutes(sequelize: Sequelize, inviteCtx: InviteContext): Rout
   });
 
   router.get('/teams/:teamId/audit', canAudit, async (req, res) => {
-    const events = await AuditEvent.findAll({
-      where: { teamId: req.teamAccess!.teamId },
-      include: [{ model: User, as: 'actor', attributes: userAttrs }],
-      order: [['createdAt', 'DESC'], ['id', 'DESC']],
-      limit: 200,
-    });
-    res.json(
-      events.map((e) => ({
-        id: e.id,
-        action: e.action,
-        subjectType: e.subjectType,
-        subjectId: e.subjectId,
-        details: e.details,
-        createdAt: e.createdAt,
-        actor: person((e as AuditEvent & { actor?: User }).actor),
-      })),
-    );
+    res.json(await auditEvents({ teamId: req.teamAccess!.teamId }, 200));
   });
 
   return router;

@@ -25,6 +25,8 @@ export async function createStudy(
 ) {
   const summary = await summarizeStudy(input.params);
   return sequelize.transaction(async (transaction) => {
+    // names go into the audit event as they are now, so the trail reads the same after a rename
+    const source = input.forkedFrom ? await Study.findByPk(input.forkedFrom.studyId, { attributes: ['title'], transaction }) : null;
     const study = await Study.create(
       {
         teamId: input.part.teamId,
@@ -57,8 +59,17 @@ export async function createStudy(
         subjectType: 'study',
         subjectId: study.id,
         details: input.forkedFrom
-          ? { title: study.title, fromRevisionId: input.forkedFrom.id, fromStudyId: input.forkedFrom.studyId, fromNumber: input.forkedFrom.number }
-          : { title: study.title },
+          ? {
+              studyId: study.id,
+              title: study.title,
+              partNumber: input.part.partNumber,
+              partName: input.part.name,
+              fromRevisionId: input.forkedFrom.id,
+              fromStudyId: input.forkedFrom.studyId,
+              fromStudyTitle: source?.title ?? null,
+              fromNumber: input.forkedFrom.number,
+            }
+          : { studyId: study.id, title: study.title, partNumber: input.part.partNumber, partName: input.part.name },
       },
       transaction,
     );
@@ -107,7 +118,7 @@ export async function saveRevision(sequelize: Sequelize, req: SaveRequest) {
         action: req.restoredFromNumber ? 'revision.restore' : 'revision.save',
         subjectType: 'revision',
         subjectId: revision.id,
-        details: { studyId: study.id, number, message: req.message, ...(req.restoredFromNumber ? { restoredFrom: req.restoredFromNumber } : {}) },
+        details: { studyId: study.id, studyTitle: study.title, number, message: req.message, ...(req.restoredFromNumber ? { restoredFrom: req.restoredFromNumber } : {}) },
       },
       transaction,
     );
@@ -141,7 +152,10 @@ export async function studyDetail(studyId: number) {
         model: Revision,
         as: 'forkedFrom',
         attributes: ['id', 'number', 'studyId'],
-        include: [{ model: Study, as: 'study', attributes: ['id', 'title', 'teamId'] }],
+        include: [
+          { model: Study, as: 'study', attributes: ['id', 'title', 'teamId'] },
+          { model: User, as: 'author', attributes: ['id', 'name'] },
+        ],
       },
     ],
   });
@@ -150,7 +164,7 @@ export async function studyDetail(studyId: number) {
     where: { studyId, number: study.latestRevisionNumber },
     include: [{ model: User, as: 'author', attributes: authorAttrs }],
   });
-  const s = study as Study & { owner?: User; part?: Part; forkedFrom?: Revision & { study?: Study } };
+  const s = study as Study & { owner?: User; part?: Part; forkedFrom?: Revision & { study?: Study; author?: User } };
   return {
     id: s.id,
     teamId: s.teamId,
@@ -161,8 +175,21 @@ export async function studyDetail(studyId: number) {
     owner: s.owner ? { id: s.owner.id, login: s.owner.login, name: s.owner.name } : null,
     part: s.part ? { id: s.part.id, partNumber: s.part.partNumber, name: s.part.name, baselineRevisionId: s.part.baselineRevisionId } : null,
     forkedFrom: s.forkedFrom
-      ? { revisionId: s.forkedFrom.id, number: s.forkedFrom.number, studyId: s.forkedFrom.studyId, studyTitle: s.forkedFrom.study?.title ?? null, teamId: s.forkedFrom.study?.teamId ?? null }
+      ? {
+          revisionId: s.forkedFrom.id,
+          number: s.forkedFrom.number,
+          studyId: s.forkedFrom.studyId,
+          studyTitle: s.forkedFrom.study?.title ?? null,
+          teamId: s.forkedFrom.study?.teamId ?? null,
+          author: s.forkedFrom.author ? { id: s.forkedFrom.author.id, name: s.forkedFrom.author.name } : null,
+        }
       : null,
+    // client paths, so the workspace header can link to the history, the part and the fork's origin
+    links: {
+      history: `/studies/${s.id}/history`,
+      part: s.part ? `/parts/${s.part.id}` : null,
+      forkedFrom: s.forkedFrom ? `/studies/${s.forkedFrom.studyId}/history` : null,
+    },
     latest: latest ? revisionView(latest as Revision & { author?: User }, true) : null,
   };
 }
