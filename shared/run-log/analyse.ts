@@ -35,14 +35,15 @@ export function analyseRunLog(input: AnalyseInput): { record: RunLogRecord; log:
     if (input.baseline) {
       const b = simulate(input.baseline.params);
       const { params: _params, ...ids } = input.baseline;
-      baseline = { ...ids, summary: b.summary, predicted: predictionTrace(b) };
+      baseline = { ...ids, summary: b.summary, maxTransverseStressMPa: maxTransverseStressMPa(b), predicted: predictionTrace(b) };
     }
     replay = {
       modelVersion: result.modelVersion,
       summary: result.summary,
       maxTransverseStressMPa: maxTransverseStressMPa(result),
       predicted: predictionTrace(result),
-      atTcs: predictionsAtTcs(log, result, replayParams),
+      // flagged TCs hygiene left out are not compared with the model either
+      atTcs: predictionsAtTcs({ ...log, channels: log.channels.filter((c) => !hygiene.excluded.includes(c.key)) }, result, replayParams),
       baseline,
     };
   } catch (error) {

@@ -38,6 +38,8 @@ const base = {
   column: z.number().int().min(0).max(MAX_RUN_LOG_COLUMNS - 1),
   header: z.string().max(200),
 };
+/** A channel hygiene flags is left out unless the uploader keeps it on purpose (stored with the mapping). */
+const keepIfFlagged = z.boolean({ error: 'keepIfFlagged must be true or false' }).optional();
 const channelLabel = z
   .string({ error: 'a channel needs a label' })
   .trim()
@@ -48,20 +50,22 @@ export const columnMappingSchema = z.discriminatedUnion(
   'role',
   [
     z.object({ ...base, role: z.literal('time'), unit: enumOf(TIME_UNITS, 'time unit') }),
-    z.object({ ...base, role: z.literal('air'), label: channelLabel, unit: enumOf(TEMPERATURE_UNITS, 'temperature unit') }),
-    z.object({ ...base, role: z.literal('tool'), label: channelLabel, unit: enumOf(TEMPERATURE_UNITS, 'temperature unit') }),
+    z.object({ ...base, role: z.literal('air'), label: channelLabel, keepIfFlagged, unit: enumOf(TEMPERATURE_UNITS, 'temperature unit') }),
+    z.object({ ...base, role: z.literal('tool'), label: channelLabel, keepIfFlagged, unit: enumOf(TEMPERATURE_UNITS, 'temperature unit') }),
     z.object({
       ...base,
       role: z.literal('part'),
       label: channelLabel,
+      keepIfFlagged,
       unit: enumOf(TEMPERATURE_UNITS, 'temperature unit'),
       position: enumOf(PART_POSITIONS, 'thermocouple position').default('unknown'),
     }),
-    z.object({ ...base, role: z.literal('pressure'), label: channelLabel, unit: enumOf(PRESSURE_UNITS, 'pressure unit') }),
+    z.object({ ...base, role: z.literal('pressure'), label: channelLabel, keepIfFlagged, unit: enumOf(PRESSURE_UNITS, 'pressure unit') }),
     z.object({
       ...base,
       role: z.literal('vacuum'),
       label: channelLabel,
+      keepIfFlagged,
       unit: enumOf(VACUUM_UNITS, 'vacuum unit'),
       reference: enumOf(VACUUM_REFERENCES, 'vacuum reference'),
     }),

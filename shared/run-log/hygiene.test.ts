@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { expectClose } from '../solver/test-support/expect-close';
 import { checkHygiene, noiseSigma, usableValues } from './hygiene';
-import { lagged, makeLog, minutes, profile } from './test-support/make-log';
+import { lagged, makeLog, minutes, profile, type LogSpec } from './test-support/make-log';
 
 // A clean 4-hour run: air 20 → 180 °C at 2 °C/min, 120 min hold, cool at 3 °C/min; TCs lag the air.
 const T = minutes(300);
@@ -14,7 +14,7 @@ const AIR = profile(T, [
 const TC1 = lagged(T, AIR, 4);
 const TC2 = lagged(T, AIR, 8);
 
-function cleanChannels() {
+function cleanChannels(): LogSpec['channels'] {
   return [
     { role: 'air' as const, label: 'Air', values: AIR },
     { role: 'part' as const, label: 'TC1', values: TC1 },
@@ -92,14 +92,31 @@ describe('checkHygiene', () => {
     expect(noiseSigma(Float64Array.from(T, (t) => 300 + t * 0.5))).toBeLessThan(1e-9);
   });
 
-  it('flags a noisy thermocouple but keeps it', () => {
+  it('flags a noisy thermocouple and leaves it out, unless the uploader kept it', () => {
     const rand = noise(11);
     const channels = cleanChannels();
     channels[1] = { ...channels[1], values: TC1.map((v) => v + rand(5)) };
     const report = checkHygiene(makeLog({ timeMin: T, channels }));
     expect(report.findings.map((f) => `${f.rule} ${f.channel}`)).toEqual(['hygiene.noisy TC1']);
     expect(report.findings[0].value).toBeGreaterThan(1);
-    expect(report.excluded).toEqual([]);
+    expect(report.findings[0].message).toContain('left out of the spec check and the replay');
+    expect(report.excluded).toEqual(['part:TC1']);
+    expect(report.flagged).toEqual([{ key: 'part:TC1', label: 'TC1', rules: ['hygiene.noisy'], reason: expect.stringMatching(/^noisy \(about ±/), excluded: true }]);
+
+    channels[1] = { ...channels[1], keepIfFlagged: true };
+    const kept = checkHygiene(makeLog({ timeMin: T, channels }));
+    expect(kept.excluded).toEqual([]);
+    expect(kept.flagged).toMatchObject([{ key: 'part:TC1', rules: ['hygiene.noisy'], excluded: false }]);
+    expect(kept.findings[0].message).toContain('uploader asked to keep it');
+  });
+
+  it('leaves out dead and flat channels with their reason', () => {
+    const channels = cleanChannels();
+    channels[2] = { ...channels[2], values: TC2.map(() => NaN) };
+    channels[3] = { ...channels[3], values: T.map(() => 7) };
+    const report = checkHygiene(makeLog({ timeMin: T, channels }));
+    expect(report.excluded).toEqual(['part:TC2', 'pressure']);
+    expect(report.flagged.map((f) => `${f.label}: ${f.reason}`)).toEqual(['TC2: dead (100 % of readings missing or impossible)', 'Pressure: flat (never changes)']);
   });
 
   it('flags a part thermocouple running well ahead of the heating air', () => {
@@ -109,6 +126,9 @@ describe('checkHygiene', () => {
     const report = checkHygiene(makeLog({ timeMin: T, channels }));
     expect(report.findings).toHaveLength(1);
     expect(report.findings[0]).toMatchObject({ rule: 'hygiene.part-leads-air', channel: 'TC1', atMin: 20, value: 15, limit: 10 });
+    // a TC that cannot be where its label says is not used for the part's temperatures
+    expect(report.excluded).toEqual(['part:TC1']);
+    expect(report.flagged[0].reason).toBe('leads the air by up to 15 °C while it heats');
   });
 
   it('finds gaps in time', () => {

@@ -17,14 +17,31 @@ import { episodes, median, round, strideOf, windowRatePerMin } from './series';
 import type { Finding, RunLog, RunLogChannel } from './types';
 
 // Data hygiene: before any check or replay uses a channel, find the channels that cannot be trusted.
-// Dead and flat channels are excluded from what follows (a dead thermocouple reading room temperature would
-// otherwise become the "lagging" part TC and fail every hold); noisy, implausible and gappy data are flagged
-// but kept.
+// Dead, flat, noisy channels and part TCs leading the air are left out of what follows (a dead thermocouple
+// reading room temperature would otherwise become the "lagging" part TC and fail every hold; a noisy one
+// fakes rate violations; a TC leading the air is misplaced or mislabelled), unless the uploader kept the
+// channel on purpose at the mapping step. Impossible readings are dropped one by one; gaps are flagged.
+
+/** Rules that take a channel out of the spec check and the replay. */
+export const EXCLUDING_RULES = ['hygiene.dead', 'hygiene.flat', 'hygiene.noisy', 'hygiene.part-leads-air'] as const;
+
+/** A channel hygiene flagged with an excluding rule: left out, or kept because the uploader asked. */
+export interface FlaggedChannel {
+  key: string;
+  label: string;
+  rules: string[];
+  /** why, in words, e.g. "noisy (±1.8 °C)" */
+  reason: string;
+  /** true: left out of the spec check and the replay; false: kept at the uploader's request */
+  excluded: boolean;
+}
 
 export interface HygieneReport {
   findings: Finding[];
-  /** keys of channels nothing downstream may use (dead or flat) */
+  /** keys of channels nothing downstream may use (flagged and not kept by the uploader) */
   excluded: string[];
+  /** every channel flagged by an excluding rule, with the reason and whether it was left out */
+  flagged: FlaggedChannel[];
   /** per channel: share of readings missing or impossible, and the estimated noise (display units) */
   channels: { key: string; label: string; badFraction: number; noise: number; noiseUnit: string }[];
 }
@@ -136,7 +153,15 @@ export function timeGaps(timeS: Float64Array): Finding[] {
 export function checkHygiene(log: RunLog): HygieneReport {
   const n = log.rows;
   const findings: Finding[] = [...timeGaps(log.timeS)];
-  const excluded: string[] = [];
+  // dead or flat: not even usable as a reference for the lead rule below
+  const unusable: string[] = [];
+  const reasons = new Map<string, { rules: string[]; reasons: string[] }>();
+  const flag = (c: RunLogChannel, rule: string, reason: string) => {
+    const entry = reasons.get(c.key) ?? { rules: [], reasons: [] };
+    entry.rules.push(rule);
+    entry.reasons.push(reason);
+    reasons.set(c.key, entry);
+  };
   const air = log.channels.find((c) => c.role === 'air');
   const airSpan = air ? spanOf(air) : 0;
   const channels: HygieneReport['channels'] = [];
@@ -182,7 +207,8 @@ export function checkHygiene(log: RunLog): HygieneReport {
       );
     }
     if (badFraction >= DEAD_FRACTION) {
-      excluded.push(c.key);
+      unusable.push(c.key);
+      flag(c, 'hygiene.dead', `dead (${round(badFraction * 100, 3)} % of readings missing or impossible)`);
       findings.push(
         finding({
           rule: 'hygiene.dead',
@@ -192,7 +218,7 @@ export function checkHygiene(log: RunLog): HygieneReport {
           value: round(badFraction * 100, 3),
           limit: DEAD_FRACTION * 100,
           unit: '%',
-          message: `${round(badFraction * 100, 3)} % of readings missing or impossible: the channel is dead and is left out of the checks and the replay`,
+          message: `${round(badFraction * 100, 3)} % of readings missing or impossible: the channel is dead${fate(c)}`,
         }),
       );
       continue;
@@ -213,8 +239,9 @@ export function checkHygiene(log: RunLog): HygieneReport {
     const span = spanOf(c);
     const flat = isTemperature(c) ? c.role !== 'air' && airSpan >= FLAT_AIR_SPAN_K && span < FLAT_SPAN_K : n > 10 && span === 0;
     if (flat) {
-      excluded.push(c.key);
+      unusable.push(c.key);
       const shown = displayDifference(c, span);
+      flag(c, 'hygiene.flat', isTemperature(c) ? `flat (spans only ${shown.value} °C)` : 'flat (never changes)');
       findings.push(
         finding({
           rule: 'hygiene.flat',
@@ -225,14 +252,15 @@ export function checkHygiene(log: RunLog): HygieneReport {
           limit: isTemperature(c) ? FLAT_SPAN_K : 0,
           unit: shown.unit,
           message: isTemperature(c)
-            ? `spans only ${shown.value} °C while the air spans ${round(airSpan, 3)} °C: not reading the part (detached or stuck); left out`
-            : `never changes: a stuck transducer; left out`,
+            ? `spans only ${shown.value} °C while the air spans ${round(airSpan, 3)} °C: not reading the part (detached or stuck)${fate(c)}`
+            : `never changes: a stuck transducer${fate(c)}`,
         }),
       );
       continue;
     }
     if (sigma > noiseLimit(c)) {
       const limit = displayDifference(c, noiseLimit(c));
+      flag(c, 'hygiene.noisy', `noisy (about ±${noiseShown.value} ${noiseShown.unit}, allowed ±${limit.value})`);
       findings.push(
         finding({
           rule: 'hygiene.noisy',
@@ -242,14 +270,33 @@ export function checkHygiene(log: RunLog): HygieneReport {
           value: noiseShown.value,
           limit: limit.value,
           unit: noiseShown.unit,
-          message: `noise about ±${noiseShown.value} ${noiseShown.unit} (allowed ±${limit.value}): check wiring and grounding; rates from this channel are unreliable`,
+          message: `noise about ±${noiseShown.value} ${noiseShown.unit} (allowed ±${limit.value}): check wiring and grounding; rates from this channel are unreliable${fate(c)}`,
         }),
       );
     }
   }
 
-  if (air && !excluded.includes(air.key)) findings.push(...partsLeadingAir(log, air, excluded));
-  return { findings, excluded, channels };
+  if (air && !unusable.includes(air.key)) {
+    for (const lead of partsLeadingAir(log, air, unusable)) {
+      const c = log.channels.find((x) => x.label === lead.channel)!;
+      flag(c, 'hygiene.part-leads-air', `leads the air by up to ${lead.value} °C while it heats`);
+      findings.push({ ...lead, message: `${lead.message}${fate(c)}` });
+    }
+  }
+  const flagged: FlaggedChannel[] = log.channels
+    .filter((c) => reasons.has(c.key))
+    .map((c) => {
+      const r = reasons.get(c.key)!;
+      return { key: c.key, label: c.label, rules: r.rules, reason: r.reasons.join('; '), excluded: !c.keepIfFlagged };
+    });
+  return { findings, excluded: flagged.filter((f) => f.excluded).map((f) => f.key), flagged, channels };
+}
+
+/** What happens to a flagged channel, appended to its finding. */
+function fate(c: RunLogChannel): string {
+  return c.keepIfFlagged
+    ? '; kept in the spec check and the replay because the uploader asked to keep it'
+    : '; left out of the spec check and the replay (the uploader may keep it at the mapping step)';
 }
 
 /**

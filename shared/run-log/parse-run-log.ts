@@ -329,6 +329,7 @@ export function parseRunLog(input: string, mappingInput: unknown, options: Parse
     header: headers[c.column],
     sourceUnit: c.role === 'vacuum' ? `${c.unit} ${c.reference}` : c.unit,
     ...(c.role === 'part' ? { position: c.position } : {}),
+    ...(c.keepIfFlagged ? { keepIfFlagged: true } : {}),
     values: series[k].done(),
   }));
   return { timeS: time.done(), channels: out, startedAt, rows: time.length };

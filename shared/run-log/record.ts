@@ -49,7 +49,15 @@ export interface ReplayRecord {
   maxTransverseStressMPa: number;
   predicted: PredictionTrace;
   atTcs: PredictionAtTc[];
-  baseline: { revisionId: number; studyId: number; number: number; summary: StudySummary; predicted: PredictionTrace } | null;
+  baseline: {
+    revisionId: number;
+    studyId: number;
+    number: number;
+    summary: StudySummary;
+    /** absent in records made before it was kept */
+    maxTransverseStressMPa?: number;
+    predicted: PredictionTrace;
+  } | null;
 }
 
 export interface RunLogRecord {

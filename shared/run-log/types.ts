@@ -13,6 +13,8 @@ export interface RunLogChannel {
   /** the unit the file was written in (the values are SI) */
   sourceUnit: string;
   position?: PartPosition;
+  /** the uploader asked to keep this channel in the checks and the replay even if hygiene flags it */
+  keepIfFlagged?: boolean;
   /** one value per row; NaN where the cell was empty (a missing reading) */
   values: Float64Array;
 }

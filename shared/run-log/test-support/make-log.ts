@@ -5,7 +5,7 @@ import type { RunLog } from '../types';
 /** A run log built in code: time in minutes, temperatures in °C, pressure in bar, vacuum in kPa. */
 export interface LogSpec {
   timeMin: number[];
-  channels: { role: ChannelRole; label: string; values: number[] }[];
+  channels: { role: ChannelRole; label: string; values: number[]; keepIfFlagged?: boolean }[];
 }
 
 export function makeLog(spec: LogSpec): RunLog {
@@ -19,6 +19,7 @@ export function makeLog(spec: LogSpec): RunLog {
       label: c.label,
       column: i + 1,
       header: c.label,
+      ...(c.keepIfFlagged ? { keepIfFlagged: true } : {}),
       sourceUnit: c.role === 'pressure' ? 'bar' : c.role === 'vacuum' ? 'kPa gauge' : '°C',
       values: Float64Array.from(c.values, (v) =>
         c.role === 'pressure' ? v * 1e5 : c.role === 'vacuum' ? v * 1e3 : Number.isNaN(v) ? NaN : cToK(v),

@@ -42,6 +42,19 @@ describe('MappingStep', () => {
     // a new role starts from that role's first unit; the user sets the real one
     expect((screen.getByLabelText('Unit of TC1 (°F)') as HTMLSelectElement).value).toBe('°C');
   });
+
+  it('lets the user keep a channel the hygiene check might flag, stored with the mapping', async () => {
+    let latest: RunLogMapping | null = null;
+    render(<Harness onMapping={(m) => (latest = m)} />);
+    const keep = screen.getByLabelText('Keep Vac (inHg) if flagged') as HTMLInputElement;
+    expect(keep.checked).toBe(false);
+    await userEvent.click(keep);
+    expect(latest!.columns[3]).toMatchObject({ role: 'vacuum', keepIfFlagged: true });
+    await userEvent.click(keep);
+    expect(latest!.columns[3]).not.toHaveProperty('keepIfFlagged');
+    // the time column has no such choice
+    expect(screen.queryByLabelText('Keep Time (min) if flagged')).toBeNull();
+  });
 });
 
 describe('withRole', () => {

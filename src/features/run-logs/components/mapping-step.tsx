@@ -68,6 +68,9 @@ export function MappingStep({
             <th className="py-1 pr-2 font-medium">Label</th>
             <th className="py-1 pr-2 font-medium">Unit</th>
             <th className="py-1 pr-2 font-medium">Position / reference</th>
+            <th className="py-1 pr-2 font-medium" title="A channel the data-hygiene check flags (dead, flat, noisy, a part TC leading the air) is left out of the spec check and the replay unless kept here">
+              Keep if flagged
+            </th>
           </tr>
         </thead>
         <tbody>
@@ -114,11 +117,28 @@ export function MappingStep({
                     </select>
                   )}
                 </td>
+                <td className="py-1 pr-2">
+                  {'label' in c && (
+                    <input
+                      type="checkbox"
+                      aria-label={`Keep ${c.header} if flagged`}
+                      checked={c.keepIfFlagged === true}
+                      onChange={(e) => {
+                        const { keepIfFlagged: _keep, ...rest } = c;
+                        update(i, (e.target.checked ? { ...rest, keepIfFlagged: true } : rest) as ColumnMapping);
+                      }}
+                    />
+                  )}
+                </td>
               </tr>
             );
           })}
         </tbody>
       </table>
+      <p className="mt-1 text-xs text-ink-faint">
+        Channels the data-hygiene check flags (dead, flat, noisy, a part TC leading the air) are left out of the spec check and the replay; tick
+        “Keep if flagged” to use one anyway (recorded with the upload).
+      </p>
       {problems.length > 0 && (
         <ul role="alert" className="mt-2 list-disc pl-5 text-sm text-fault">
           {problems.map((p) => <li key={p}>{p}</li>)}

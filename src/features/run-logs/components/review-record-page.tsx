@@ -1,6 +1,7 @@
 import { Link, useParams } from 'react-router-dom';
 import { useRunLog } from '../api/run-logs-api';
 import { FindingsTable } from './findings-table';
+import { FlaggedChannels } from './flagged-channels';
 import { ReplayChart } from './replay-chart';
 import { ReplayResults } from './replay-results';
 import { CAUTIONS, fmtTime, LoadError, Loading } from './status';
@@ -31,6 +32,7 @@ export function ReviewRecordPage() {
       </dl>
       <h2 className="mt-5 font-semibold">Data hygiene</h2>
       <FindingsTable findings={rec.hygiene.findings} empty="No hygiene findings." testId="record-hygiene" />
+      <FlaggedChannels hygiene={rec.hygiene} />
       <h2 className="mt-5 font-semibold">Findings against the specification</h2>
       <FindingsTable findings={rec.spec.findings} empty="No findings." testId="record-spec" />
       <h2 className="mt-5 font-semibold">Replay</h2>

@@ -1,6 +1,7 @@
 import { Link, useParams } from 'react-router-dom';
 import { useRunLog } from '../api/run-logs-api';
 import { FindingsTable } from './findings-table';
+import { FlaggedChannels } from './flagged-channels';
 import { ReplayChart } from './replay-chart';
 import { ReplayResults } from './replay-results';
 import { ReviewSection } from './review-form';
@@ -34,6 +35,7 @@ export function RunLogPage() {
       <div className={panel}>
         <h2 className={heading}>Data hygiene</h2>
         <FindingsTable findings={rec.hygiene.findings} empty="Every channel reads plausibly: none dead, flat, noisy or out of range, and no gaps." testId="hygiene-findings" />
+        <FlaggedChannels hygiene={rec.hygiene} />
       </div>
 
       <div className={panel}>
