@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatChange, formatFigure, formatNumber } from './format-figure';
+import { changeShows, formatChange, formatChangeBetween, formatFigure, formatLimit, formatNumber } from './format-figure';
 
 describe('figure formatting', () => {
   it('shows figures with the decimals of their unit', () => {
@@ -16,5 +16,24 @@ describe('figure formatting', () => {
     expect(formatChange(-0.0123, '')).toBe('−0.012');
     expect(formatChange(0.2, 'min')).toBe('±0 min');
     expect(formatChange(null, 'min')).toBe('—');
+  });
+
+  it('takes a change from the figures as written, so A, B and B − A agree on screen', () => {
+    // Written 0.948 and 0.950: the reader subtracts 0.002, though the unrounded change is 0.00102 ("+0.001").
+    expect(formatFigure(0.94849, '')).toBe('0.948');
+    expect(formatFigure(0.94951, '')).toBe('0.950');
+    expect(formatChange(0.94951 - 0.94849, '')).toBe('+0.001');
+    expect(formatChangeBetween(0.94849, 0.94951, '')).toBe('+0.002');
+    expect(formatChangeBetween(0.95, 0.948, '')).toBe('−0.002');
+    // both written 182.4 °C: no change shows
+    expect(formatChangeBetween(182.44, 182.36, '°C')).toBe('±0.0 °C');
+    expect(changeShows(182.44, 182.36, '°C')).toBe(false);
+    expect(formatChangeBetween(null, 3, 'min')).toBe('—');
+  });
+
+  it('writes a limit with its direction and the precision of its unit', () => {
+    expect(formatLimit('minFinalCure', 0.9, '')).toBe('≥ 0.900');
+    expect(formatLimit('maxOvershootC', 10, '°C')).toBe('≤ 10.0 °C');
+    expect(formatLimit('maxSpringInDeg', 1.5, '°')).toBe('≤ 1.50°');
   });
 });

@@ -1,5 +1,5 @@
 import type { MetricComparison } from '../../../shared/compare/metric-deltas';
-import { formatChange, formatFigure, formatNumber } from './format-figure';
+import { changeShows, formatChangeBetween, formatFigure, formatLimit, formatNumber } from './format-figure';
 
 function Verdict({ pass }: { pass: boolean }) {
   return pass ? <span className="text-verdigris">pass</span> : <span className="font-semibold text-fault">FAIL</span>;
@@ -27,8 +27,8 @@ export function MetricsTable({ comparison, labelA, labelB }: { comparison: Metri
               <th scope="row" className="px-2 py-1 text-left font-normal">{m.label}</th>
               <td className={td}>{formatFigure(m.a, m.unit)}</td>
               <td className={td}>{formatFigure(m.b, m.unit)}</td>
-              <td className={`${td} ${m.delta ? 'font-semibold' : 'text-ink-faint'}`} data-testid={`delta-${m.key}`}>
-                {formatChange(m.delta, m.unit)}
+              <td className={`${td} ${changeShows(m.a, m.b, m.unit) ? 'font-semibold' : 'text-ink-faint'}`} data-testid={`delta-${m.key}`}>
+                {formatChangeBetween(m.a, m.b, m.unit)}
               </td>
             </tr>
           ))}
@@ -40,7 +40,7 @@ export function MetricsTable({ comparison, labelA, labelB }: { comparison: Metri
         <thead className="border-b border-rule">
           <tr>
             <th className={th} scope="col">Process limit</th>
-            <th className={`${th} text-right`} scope="col">Limit (unit)</th>
+            <th className={`${th} text-right`} scope="col">Limit</th>
             <th className={`${th} text-right`} scope="col">A</th>
             <th className={`${th} text-right`} scope="col">B</th>
             <th className={th} scope="col">Verdict change</th>
@@ -51,8 +51,8 @@ export function MetricsTable({ comparison, labelA, labelB }: { comparison: Metri
             <tr key={l.key} className={`border-b border-rule/60 ${l.flip === 'now-fails' ? 'bg-fault-soft' : l.flip === 'now-passes' ? 'bg-verdigris-soft' : ''}`} data-limit={l.key} data-flip={l.flip ?? 'none'}>
               <th scope="row" className="px-2 py-1 text-left font-normal">{l.label}</th>
               <td className={td}>
-                {l.limitChanged && l.a ? `${formatFigure(l.a.limit, l.unit)} → ` : ''}
-                {formatFigure((l.b ?? l.a)!.limit, l.unit)}
+                {l.limitChanged && l.a ? `${formatLimit(l.key, l.a.limit, l.unit)} → ` : ''}
+                {formatLimit(l.key, (l.b ?? l.a)!.limit, l.unit)}
               </td>
               <td className={td}>{l.a ? <>{formatNumber(l.a.value, l.unit)} <Verdict pass={l.a.pass} /></> : '—'}</td>
               <td className={td}>{l.b ? <>{formatNumber(l.b.value, l.unit)} <Verdict pass={l.b.pass} /></> : '—'}</td>

@@ -4,7 +4,7 @@ import { Link, useSearchParams } from 'react-router-dom';
 import { metricDeltas } from '../../../../shared/compare/metric-deltas';
 import { paramDiff } from '../../../../shared/compare/param-diff';
 import type { SimulationResult } from '../../../../shared/solver/simulation-result';
-import { formatFigure } from '../../../components/comparison/format-figure';
+import { formatFigure, formatLimit } from '../../../components/comparison/format-figure';
 import { MetricsTable } from '../../../components/comparison/metrics-table';
 import { ParamDiffList } from '../../../components/comparison/param-diff-list';
 import { CsvDownloadButton } from '../../../components/export/csv-download-button';
@@ -184,8 +184,7 @@ export function ReportPage() {
                     </th>
                     <td className="num py-0.5 text-right">{formatFigure(l.value, l.unit)}</td>
                     <td className="num py-0.5 text-right">
-                      {l.key === 'minFinalCure' ? '≥ ' : '≤ '}
-                      {formatFigure(l.limit, l.unit)}
+                      {formatLimit(l.key, l.limit, l.unit)}
                     </td>
                     <td className={`py-0.5 pl-3 font-semibold ${l.pass ? 'text-verdigris' : 'text-fault'}`}>{l.pass ? '✓ pass' : '✕ FAIL'}</td>
                     <td className="num py-0.5 text-xs text-ink-soft">

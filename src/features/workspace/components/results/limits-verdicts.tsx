@@ -1,17 +1,6 @@
 import { memo } from 'react';
-import type { StudySummary } from '../../model/simulation-result';
 import { resultsStore, useResults } from '../../stores/results-store';
-
-type Check = StudySummary['limits'][number];
-
-function fmt(v: number): string {
-  if (v === 0) return '0';
-  const a = Math.abs(v);
-  return a >= 100 ? v.toFixed(0) : a >= 10 ? v.toFixed(1) : a >= 1 ? v.toFixed(2) : v.toFixed(3);
-}
-
-const unitOf = (c: Check) => (c.unit ? ` ${c.unit}` : '');
-const relation = (c: Check) => (c.key === 'minFinalCure' ? '≥' : '≤');
+import { formatFigure, formatLimit } from '../../../../components/comparison/format-figure';
 
 /** Pass or fail per process limit, with the worst value and where and when; a row moves the scrubber there. */
 export const LimitsVerdicts = memo(function LimitsVerdicts() {
@@ -32,24 +21,22 @@ export const LimitsVerdicts = memo(function LimitsVerdicts() {
               data-testid={`limit-${c.key}`}
               onClick={() => c.atTimeMin !== null && resultsStore.getState().scrubTo(c.atTimeMin, c.atZMm)}
               disabled={c.atTimeMin === null}
-              aria-label={`${c.label}: ${c.pass ? 'within limit' : 'exceeds limit'}, ${fmt(c.value)}${unitOf(c)} against ${relation(c)} ${fmt(c.limit)}${unitOf(c)}. Show when and where.`}
+              aria-label={`${c.label}: ${c.pass ? 'within limit' : 'exceeds limit'}, ${formatFigure(c.value, c.unit)} against ${formatLimit(c.key, c.limit, c.unit)}. Show when and where.`}
             >
               <span aria-hidden className={`text-center text-xs font-bold ${c.pass ? 'text-verdigris' : 'text-fault'}`}>
                 {c.pass ? '✓' : '✕'}
               </span>
               <span className="text-xs text-ink">{c.label}</span>
               <span className={`num text-xs ${c.pass ? 'text-ink' : 'font-semibold text-fault'}`}>
-                {fmt(c.value)}
-                {unitOf(c)}
+                {formatFigure(c.value, c.unit)}
               </span>
               <span />
               <span className="num text-[11px] text-ink-faint">
-                {c.atTimeMin !== null && `at ${fmt(c.atTimeMin)} min`}
-                {c.atZMm !== null && `, z ${fmt(c.atZMm)} mm`}
+                {c.atTimeMin !== null && `at ${formatFigure(c.atTimeMin, 'min')}`}
+                {c.atZMm !== null && `, z ${formatFigure(c.atZMm, 'mm')}`}
               </span>
               <span className="num text-[11px] text-ink-faint">
-                {relation(c)} {fmt(c.limit)}
-                {unitOf(c)}
+                {formatLimit(c.key, c.limit, c.unit)}
               </span>
             </button>
           </li>
