@@ -3,7 +3,7 @@ import { referenceStudy } from '../solver/demo-cards';
 import { parseStudy, type StudyParams } from '../schemas/study';
 import { checkHygiene } from './hygiene';
 import { checkSpec, holdsOf } from './spec-check';
-import { lagged, makeLog, minutes, profile } from './test-support/make-log';
+import { lagged, makeLog, minutes, profile, type LogSpec } from './test-support/make-log';
 
 // Constructed runs against one cycle: 2 °C/min to 180 °C, hold 120 min (band ±5 °C, timed from the lagging
 // part TC), cool at 3 °C/min to 60 °C. Part TCs follow the air through first-order lags of 4 and 8 min.
@@ -51,12 +51,13 @@ function run(shape: RunShape = {}) {
     [holdTo, peak],
     [holdTo + (peak - 20) / coolRate, 20],
   ]);
-  const channels = [
+  const channels: LogSpec['channels'] = [
     { role: 'air' as const, label: 'Air', values: air },
     { role: 'part' as const, label: 'TC1', values: lagged(T, air, 4) },
     { role: 'part' as const, label: 'TC2', values: lagged(T, air, 8) },
     { role: 'pressure' as const, label: 'Pressure', values: T.map((t) => Math.min(7, t * 1.4)) },
-    { role: 'vacuum' as const, label: 'Vacuum', values: T.map(() => 95) },
+    // a live gauge wanders a little (a constant reading is a stuck transducer, which hygiene leaves out)
+    { role: 'vacuum' as const, label: 'Vacuum', values: T.map((_, i) => 95 + (i % 3) * 0.1) },
   ];
   return { T, air, channels, rampEnd, holdTo };
 }
@@ -189,5 +190,55 @@ describe('checkSpec', () => {
     // without hygiene the detached TC is the "lagging" one and the hold never starts
     expect(checkSpec(log, study()).findings.map((f) => f.rule)).toContain('spec.hold-not-reached');
     expect(check(r).findings).toEqual([]);
+  });
+
+  it('says a window was not checked when its channel is missing or left out, instead of passing it silently', () => {
+    const r = run();
+    const noGauges = { ...r, channels: r.channels.filter((c) => c.role !== 'pressure' && c.role !== 'vacuum') };
+    const report = check(noGauges);
+    expect(rulesOf(report)).toEqual(['spec.no-pressure record', 'spec.no-vacuum record']);
+    expect(report.findings.map((f) => f.message)).toEqual([
+      'vessel pressure not checked: no pressure channel in the mapping',
+      'bag vacuum not checked: no vacuum channel in the mapping',
+    ]);
+    expect(report.findings.every((f) => f.severity === 'warning')).toBe(true);
+    expect(report.pressure).toBeNull();
+
+    // a stuck pressure transducer: hygiene leaves it out, so the window is "not checked", not "passed"
+    r.channels[3].values = r.T.map(() => 7);
+    const stuck = check(r);
+    expect(rulesOf(stuck)).toEqual(['spec.no-pressure Pressure']);
+    expect(stuck.findings[0].message).toContain('left out by the hygiene check');
+  });
+
+  it('keeps a noisy TC flagged by hygiene out of the rates unless the uploader kept it', () => {
+    const r = run();
+    // ±4 °C of alternating noise fakes 8 °C steps a minute apart; over the 5-min rate window that reads as fast heating
+    let s = 7;
+    const rand = () => ((s = (s * 16807) % 2147483647) / 2147483647 - 0.5) * 8;
+    r.channels[1].values = r.channels[1].values.map((v) => v + rand());
+    const left = check(r);
+    expect(left.rates.map((x) => x.channel)).toEqual(['TC2']);
+    expect(left.findings.filter((f) => f.channel === 'TC1')).toEqual([]);
+    r.channels[1] = { ...r.channels[1], keepIfFlagged: true };
+    expect(check(r).rates.map((x) => x.channel)).toEqual(['TC1', 'TC2']);
+  });
+
+  it('reports what passed: rates, hold band and time, maximum temperature, pressure and vacuum against their limits', () => {
+    const report = check(run());
+    expect(report.findings).toEqual([]);
+    expect(report.limits).toEqual({ maxHeatCPerMin: study().limits.maxHeatRateCPerMin, maxCoolCPerMin: study().limits.maxCoolRateCPerMin, maxTemperatureC: 180 + study().limits.maxOvershootC, maxCycleMin: study().limits.maxCycleMin });
+    // a lagged TC never heats faster than the 2 °C/min air, nor cools faster than its 3 °C/min
+    for (const r of report.rates) {
+      expect(r.maxHeatCPerMin!).toBeLessThanOrEqual(2.001);
+      expect(r.maxHeatCPerMin!).toBeGreaterThan(1.5);
+      expect(r.maxCoolCPerMin!).toBeLessThanOrEqual(3.001);
+    }
+    const hold = report.holds[0];
+    expect(hold.allowanceMin).toBe(6); // max(5 min, 5 % of 120 min)
+    expect(hold.minC!).toBeGreaterThanOrEqual(175);
+    expect(hold.maxC!).toBeLessThanOrEqual(180.001);
+    expect(report.pressure).toEqual({ channel: 'Pressure', min: 7, max: 7, low: 6.5, high: 7.5, unit: 'bar', reached: true });
+    expect(report.vacuum).toEqual({ channel: 'Vacuum', min: 95, max: 95.2, low: 75, high: null, unit: 'kPa', reached: true });
   });
 });

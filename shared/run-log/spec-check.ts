@@ -25,10 +25,28 @@ export interface HoldReport {
   targetC: number;
   bandC: number;
   specifiedMin: number;
+  /** the hold time allowed either way, min */
+  allowanceMin?: number;
   /** when the lagging TC entered the band and when the leading TC left it (min from the first row) */
   startMin: number | null;
   endMin: number | null;
   measuredMin: number | null;
+  /** coldest and hottest part reading while the hold lasted, °C */
+  minC?: number | null;
+  maxC?: number | null;
+}
+
+/** A pressure or vacuum channel against its window, in bar (pressure) or kPa below atmosphere (vacuum). */
+export interface WindowReport {
+  channel: string;
+  /** lowest and highest reading while the window applied (from reaching it until the part cooled to demould) */
+  min: number | null;
+  max: number | null;
+  /** the window: null where it has no bound */
+  low: number | null;
+  high: number | null;
+  unit: string;
+  reached: boolean;
 }
 
 export interface SpecReport {
@@ -40,6 +58,11 @@ export interface SpecReport {
   rates: { channel: string; maxHeatCPerMin: number | null; maxCoolCPerMin: number | null }[];
   maxPartC: number | null;
   durationMin: number;
+  /** the limits the figures above were held against (absent in records made before they were kept) */
+  limits?: { maxHeatCPerMin: number; maxCoolCPerMin: number; maxTemperatureC: number; maxCycleMin: number };
+  /** null when there was no channel to check (a finding says so) */
+  pressure?: WindowReport | null;
+  vacuum?: WindowReport | null;
 }
 
 interface Hold {
@@ -105,7 +128,7 @@ export function checkSpec(log: RunLog, params: StudyParams, options: SpecCheckOp
     );
     parts = airCh ? [airCh] : [];
   }
-  if (parts.length === 0) return { findings, leadingTc: null, laggingTc: null, holds: [], rates: [], maxPartC: null, durationMin };
+  if (parts.length === 0) return { findings, leadingTc: null, laggingTc: null, holds: [], rates: [], maxPartC: null, durationMin, pressure: null, vacuum: null };
   const partValues = parts.map(usableValues);
   const { max: hottest, min: coldest } = envelope(partValues, n);
 
@@ -152,7 +175,19 @@ export function checkSpec(log: RunLog, params: StudyParams, options: SpecCheckOp
   for (const [h, hold] of holdsOf(params).entries()) {
     const lo = cToK(hold.targetC - hold.bandC);
     const hi = cToK(hold.targetC + hold.bandC);
-    const report: HoldReport = { hold: h + 1, targetC: hold.targetC, bandC: hold.bandC, specifiedMin: hold.holdMin, startMin: null, endMin: null, measuredMin: null };
+    const allowance = Math.max(tol.min, tol.fraction * hold.holdMin);
+    const report: HoldReport = {
+      hold: h + 1,
+      targetC: hold.targetC,
+      bandC: hold.bandC,
+      specifiedMin: hold.holdMin,
+      allowanceMin: round(allowance),
+      startMin: null,
+      endMin: null,
+      measuredMin: null,
+      minC: null,
+      maxC: null,
+    };
     holdReports.push(report);
     // Start: the lagging TC (coldest coming up, hottest coming down) enters the band.
     const lagging = hold.from === 'below' ? coldest : hottest;
@@ -203,7 +238,14 @@ export function checkSpec(log: RunLog, params: StudyParams, options: SpecCheckOp
     report.startMin = minAt(start);
     report.endMin = minAt(end);
     report.measuredMin = round(measured);
-    const allowance = Math.max(tol.min, tol.fraction * hold.holdMin);
+    let lowK = Infinity;
+    let highK = -Infinity;
+    for (let i = start; i <= end; i++) {
+      if (coldest[i] < lowK) lowK = coldest[i];
+      if (hottest[i] > highK) highK = hottest[i];
+    }
+    report.minC = Number.isFinite(lowK) ? round(kToC(lowK)) : null;
+    report.maxC = Number.isFinite(highK) ? round(kToC(highK)) : null;
     if (measured < hold.holdMin - allowance || measured > hold.holdMin + allowance) {
       const long = measured > hold.holdMin;
       findings.push(
@@ -278,8 +320,8 @@ export function checkSpec(log: RunLog, params: StudyParams, options: SpecCheckOp
       }
     }
   }
-  pressureWindow(findings, log, params, windowEnd, options.pressureToleranceBar ?? PRESSURE_TOLERANCE_BAR, excluded);
-  vacuumWindow(findings, log, windowEnd, options.minVacuumDepthKpa ?? MIN_VACUUM_DEPTH_KPA, excluded);
+  const pressure = pressureWindow(findings, log, params, windowEnd, options.pressureToleranceBar ?? PRESSURE_TOLERANCE_BAR, excluded);
+  const vacuum = vacuumWindow(findings, log, windowEnd, options.minVacuumDepthKpa ?? MIN_VACUUM_DEPTH_KPA, excluded);
 
   if (durationMin > limits.maxCycleMin) {
     findings.push(
@@ -304,7 +346,46 @@ export function checkSpec(log: RunLog, params: StudyParams, options: SpecCheckOp
     rates,
     maxPartC: Number.isFinite(maxPart) ? round(kToC(maxPart)) : null,
     durationMin,
+    limits: {
+      maxHeatCPerMin: limits.maxHeatRateCPerMin,
+      maxCoolCPerMin: limits.maxCoolRateCPerMin,
+      maxTemperatureC: round(maxTargetC + limits.maxOvershootC),
+      maxCycleMin: limits.maxCycleMin,
+    },
+    pressure,
+    vacuum,
   };
+}
+
+/** "Not checked" for a window whose channel is missing or was left out by hygiene: silence would read as a pass. */
+function notChecked(out: Finding[], log: RunLog, role: 'pressure' | 'vacuum', excluded: Set<string>) {
+  const left = log.channels.find((c) => c.role === role && excluded.has(c.key));
+  const what = role === 'pressure' ? 'vessel pressure' : 'bag vacuum';
+  out.push(
+    f({
+      rule: role === 'pressure' ? 'spec.no-pressure' : 'spec.no-vacuum',
+      severity: 'warning',
+      channel: left?.label ?? 'record',
+      atMin: 0,
+      value: null,
+      limit: null,
+      unit: '',
+      message: left
+        ? `${what} not checked: the ${role} channel was left out by the hygiene check`
+        : `${what} not checked: no ${role} channel in the mapping`,
+    }),
+  );
+}
+
+/** Lowest and highest usable value from start (inclusive) to end (exclusive). */
+function extremes(v: Float64Array, start: number, end: number): { min: number; max: number } {
+  let min = Infinity;
+  let max = -Infinity;
+  for (let i = start; i < end; i++) {
+    if (v[i] < min) min = v[i];
+    if (v[i] > max) max = v[i];
+  }
+  return { min, max };
 }
 
 type EpisodeFinding = Omit<Finding, 'atMin' | 'untilMin'>;
@@ -342,13 +423,17 @@ function rateFindings(out: Finding[], c: RunLogChannel, rate: Float64Array, kind
   }));
 }
 
-function pressureWindow(out: Finding[], log: RunLog, params: StudyParams, windowEnd: number, tolBar: number, excluded: Set<string>) {
+function pressureWindow(out: Finding[], log: RunLog, params: StudyParams, windowEnd: number, tolBar: number, excluded: Set<string>): WindowReport | null {
   const ch = log.channels.find((c) => c.role === 'pressure' && !excluded.has(c.key));
   const setBar =
     params.cycle.kind === 'segments'
       ? Math.max(...params.cycle.segments.map((s) => s.pressureBar))
       : Math.max(0, ...params.cycle.points.map((p) => p.pressureBar ?? 0));
-  if (!ch || !(setBar > 0)) return;
+  if (!(setBar > 0)) return null; // an oven or vacuum-only cure: no vessel pressure to hold
+  if (!ch) {
+    notChecked(out, log, 'pressure', excluded);
+    return null;
+  }
   const p = usableValues(ch);
   const lo = barToPa(setBar - tolBar);
   const hi = barToPa(setBar + tolBar);
@@ -375,8 +460,9 @@ function pressureWindow(out: Finding[], log: RunLog, params: StudyParams, window
         message: `vessel pressure never reached ${setBar} − ${tolBar} bar (peak ${round(paToBar(p[peak]))} bar)`,
       }),
     );
-    return;
+    return { channel: ch.label, min: null, max: Number.isFinite(p[peak]) ? round(paToBar(p[peak])) : null, low: round(setBar - tolBar), high: round(setBar + tolBar), unit: 'bar', reached: false };
   }
+  const seen = extremes(p, start, windowEnd);
   const runs = episodes(start, windowEnd, (i) => p[i] < lo || p[i] > hi, (i) => Math.max(lo - p[i], p[i] - hi));
   reportEpisodes(out, runs, t, (e) => ({
     rule: 'spec.pressure-window',
@@ -387,11 +473,16 @@ function pressureWindow(out: Finding[], log: RunLog, params: StudyParams, window
     unit: 'bar',
     message: `vessel pressure ${round(paToBar(p[e.worst]))} bar outside ${setBar} ± ${tolBar} bar before the part cooled to demould`,
   }));
+  const shown = (x: number) => (Number.isFinite(x) ? round(paToBar(x)) : null);
+  return { channel: ch.label, min: shown(seen.min), max: shown(seen.max), low: round(setBar - tolBar), high: round(setBar + tolBar), unit: 'bar', reached: true };
 }
 
-function vacuumWindow(out: Finding[], log: RunLog, windowEnd: number, minDepthKpa: number, excluded: Set<string>) {
+function vacuumWindow(out: Finding[], log: RunLog, windowEnd: number, minDepthKpa: number, excluded: Set<string>): WindowReport | null {
   const ch = log.channels.find((c) => c.role === 'vacuum' && !excluded.has(c.key));
-  if (!ch) return;
+  if (!ch) {
+    notChecked(out, log, 'vacuum', excluded);
+    return null;
+  }
   const v = usableValues(ch);
   const min = minDepthKpa * 1e3;
   const t = log.timeS;
@@ -415,8 +506,10 @@ function vacuumWindow(out: Finding[], log: RunLog, windowEnd: number, minDepthKp
         message: `bag vacuum never reached ${minDepthKpa} kPa below atmosphere`,
       }),
     );
-    return;
+    const deepest = extremes(v, 0, log.rows).max;
+    return { channel: ch.label, min: null, max: Number.isFinite(deepest) ? round(paToKpa(deepest)) : null, low: minDepthKpa, high: null, unit: 'kPa', reached: false };
   }
+  const seen = extremes(v, start, windowEnd);
   const runs = episodes(start, windowEnd, (i) => v[i] < min, (i) => min - v[i]);
   reportEpisodes(out, runs, t, (e) => ({
     rule: 'spec.vacuum-window',
@@ -427,4 +520,6 @@ function vacuumWindow(out: Finding[], log: RunLog, windowEnd: number, minDepthKp
     unit: 'kPa',
     message: `bag vacuum fell to ${round(paToKpa(v[e.worst]))} kPa below atmosphere: allowed ≥ ${minDepthKpa} kPa until the part cooled to demould (a bag leak?)`,
   }));
+  const shown = (x: number) => (Number.isFinite(x) ? round(paToKpa(x)) : null);
+  return { channel: ch.label, min: shown(seen.min), max: shown(seen.max), low: minDepthKpa, high: null, unit: 'kPa', reached: true };
 }

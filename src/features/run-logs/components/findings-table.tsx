@@ -28,6 +28,8 @@ export const RULE_LABELS: Record<string, string> = {
   'spec.vacuum-not-reached': 'Vacuum not reached',
   'spec.cycle-time': 'Cycle time',
   'spec.no-part-tc': 'No part thermocouple',
+  'spec.no-pressure': 'Pressure not checked',
+  'spec.no-vacuum': 'Vacuum not checked',
 };
 
 const fmt = (v: number | null) => (v === null ? '—' : String(v));
