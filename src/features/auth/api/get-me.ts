@@ -5,7 +5,8 @@ export type TeamRole = 'viewer' | 'engineer' | 'lead';
 export type Me = {
   user: { id: number; login: string; name: string; email: string | null; avatarUrl: string | null; isAdmin: boolean } | null;
   memberships: { teamId: number; teamSlug: string; teamName: string; role: TeamRole }[];
-  csrfToken: string;
+  /** null for anonymous visitors (the API client fetches one when it needs it) */
+  csrfToken: string | null;
 };
 
 /** Who is signed in; also hands the session's CSRF token to the API client. */

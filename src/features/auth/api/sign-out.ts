@@ -1,10 +1,9 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { api } from '../../../lib/api-client';
-import { getMe } from './get-me';
+import { api, resetCsrfToken } from '../../../lib/api-client';
 
 export async function signOut(): Promise<void> {
-  await getMe(); // a fresh CSRF token for this session
   await api.post('/auth/logout');
+  resetCsrfToken(); // the next session gets a token of its own
 }
 
 export function useSignOut() {

@@ -1,10 +1,9 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
-import { withCsrf } from './csrf';
 
 export type PinInput = { partId: number; revisionId: number; note: string };
 
-export const pinBaseline = ({ partId, revisionId, note }: PinInput) => withCsrf(() => api.put(`/parts/${partId}/baseline`, { revisionId, note }));
+export const pinBaseline = ({ partId, revisionId, note }: PinInput) => api.put(`/parts/${partId}/baseline`, { revisionId, note });
 
 export function usePinBaseline() {
   const queryClient = useQueryClient();

@@ -1,12 +1,11 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
-import { withCsrf } from './csrf';
 
 export const restoreRevision = ({ studyId, number, baseRevision }: { studyId: number; number: number; baseRevision: number }) =>
-  withCsrf(() => api.post<{ number: number }>(`/studies/${studyId}/revisions/${number}/restore`, { baseRevision }));
+  api.post<{ number: number }>(`/studies/${studyId}/revisions/${number}/restore`, { baseRevision });
 
 export const forkFromRevision = ({ studyId, number, title }: { studyId: number; number: number; title?: string }) =>
-  withCsrf(() => api.post<{ id: number; title: string }>(`/studies/${studyId}/revisions/${number}/fork`, title ? { title } : {}));
+  api.post<{ id: number; title: string }>(`/studies/${studyId}/revisions/${number}/fork`, title ? { title } : {});
 
 export function useRestoreRevision() {
   const queryClient = useQueryClient();

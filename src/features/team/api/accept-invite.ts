@@ -1,6 +1,5 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
-import { withCsrf } from './csrf';
 
 export type InvitePreview = { teamId: number; teamName: string; role: 'viewer' | 'engineer' | 'lead'; email: string; expiresAt: string };
 
@@ -14,7 +13,7 @@ export const useInvitePreview = (token: string) => useQuery(invitePreviewQueryOp
 export function useAcceptInvite() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (token: string) => withCsrf(() => api.post<{ teamId: number; teamName: string; role: string }>(`/invites/${encodeURIComponent(token)}/accept`)),
+    mutationFn: (token: string) => api.post<{ teamId: number; teamName: string; role: string }>(`/invites/${encodeURIComponent(token)}/accept`),
     // The preview would now answer 410 (used); refresh only who-is-in-what.
     onSuccess: () => {
       void queryClient.invalidateQueries({ queryKey: ['me'] });

@@ -1,12 +1,11 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
-import { withCsrf } from './csrf';
 import type { Member } from './get-members';
 
 export type ChangeRoleInput = { teamId: string; userId: number; role: Member['role'] };
 
 export const changeRole = ({ teamId, userId, role }: ChangeRoleInput) =>
-  withCsrf(() => api.patch<{ userId: number; role: Member['role'] }>(`/teams/${encodeURIComponent(teamId)}/members/${userId}`, { role }));
+  api.patch<{ userId: number; role: Member['role'] }>(`/teams/${encodeURIComponent(teamId)}/members/${userId}`, { role });
 
 export function useChangeRole() {
   const queryClient = useQueryClient();

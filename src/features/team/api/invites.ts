@@ -1,6 +1,5 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
-import { withCsrf } from './csrf';
 
 export type Invite = {
   id: number;
@@ -26,7 +25,7 @@ export type CreateInviteInput = { teamId: string; email: string; role: Invite['r
 export function useCreateInvite() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ teamId, email, role }: CreateInviteInput) => withCsrf(() => api.post<Invite>(`/teams/${encodeURIComponent(teamId)}/invites`, { email, role })),
+    mutationFn: ({ teamId, email, role }: CreateInviteInput) => api.post<Invite>(`/teams/${encodeURIComponent(teamId)}/invites`, { email, role }),
     onSuccess: (_r, input) => queryClient.invalidateQueries({ queryKey: ['teams', 'detail', input.teamId] }),
   });
 }
@@ -35,7 +34,7 @@ export function useResendInvite() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: ({ teamId, inviteId }: { teamId: string; inviteId: number }) =>
-      withCsrf(() => api.post<Invite>(`/teams/${encodeURIComponent(teamId)}/invites/${inviteId}/resend`)),
+      api.post<Invite>(`/teams/${encodeURIComponent(teamId)}/invites/${inviteId}/resend`),
     onSuccess: (_r, input) => queryClient.invalidateQueries({ queryKey: ['teams', 'detail', input.teamId, 'invites'] }),
   });
 }

@@ -1,12 +1,10 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { api, setCsrfToken } from '../../../lib/api-client';
+import { api } from '../../../lib/api-client';
 
 export type RestoreInput = { studyId: string; revision: number; baseRevision: number };
 
 /** Save an earlier revision's inputs again as the study's newest revision (history is never rewritten). */
 export async function restoreRevision(input: RestoreInput): Promise<{ number: number }> {
-  const { csrfToken } = await api.get<{ csrfToken: string }>('/auth/csrf');
-  setCsrfToken(csrfToken);
   return api.post<{ number: number }>(`/studies/${encodeURIComponent(input.studyId)}/revisions/${input.revision}/restore`, {
     baseRevision: input.baseRevision,
   });

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { api, ApiError, setCsrfToken } from '../../../lib/api-client';
+import { api, ApiError } from '../../../lib/api-client';
 import type { StudyParams } from '../../../../shared/schemas/study';
 
 export type SaveRevisionInput = { studyId: string; baseRevision: number; message: string; params: StudyParams };
@@ -16,9 +16,6 @@ export class StaleRevisionError extends Error {
 }
 
 export async function saveRevision(input: SaveRevisionInput): Promise<SavedRevision> {
-  // The session's synchroniser token; fetched here so saving works whichever page signed the user in.
-  const { csrfToken } = await api.get<{ csrfToken: string }>('/auth/csrf');
-  setCsrfToken(csrfToken);
   try {
     return await api.post<SavedRevision>(`/studies/${encodeURIComponent(input.studyId)}/revisions`, {
       baseRevision: input.baseRevision,
