@@ -73,6 +73,17 @@ export function dragRampRate(span: SegmentSpan, deltaMin: number): DragResult<nu
   return { ok: true, value: rate };
 }
 
+/**
+ * A ramp's (or cool's) rate stepped by the keyboard: ±0.1 °C/min per key (±1 with Shift). Stepping the
+ * rate itself, not the end's time: a 1-min step changes a slow ramp's rate by less than the 0.1 °C/min it
+ * is rounded to (60 min at 1.5 °C/min → 61 min is 1.477, which rounds back to 1.5), so the key did nothing.
+ */
+export function stepRampRate(rateCPerMin: number, stepCPerMin: number): DragResult<number> {
+  const rate = roundRate(rateCPerMin + stepCPerMin);
+  if (!(rate > 0)) return { ok: false, reason: `the rate would be ${rate} °C/min: allowed > 0 °C/min` };
+  return { ok: true, value: rate };
+}
+
 /** Moving a dwell's right edge: a new length. */
 export function dragHoldLength(originalHoldMin: number, deltaMin: number): DragResult<number> {
   const value = roundMinutes(originalHoldMin + deltaMin);

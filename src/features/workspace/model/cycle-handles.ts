@@ -5,14 +5,18 @@
  */
 import type { Draft } from 'immer';
 import type { CycleSegment, StudyParams } from '../../../../shared/schemas/study';
-import { cycleSpans, dragHoldLength, dragRampRate, dragRampTarget, dwellTemperatureOwner, roundTempC } from './cycle-geometry';
+import { cycleSpans, dragHoldLength, dragRampRate, dragRampTarget, dwellTemperatureOwner, roundTempC, stepRampRate } from './cycle-geometry';
 
 export type CycleHandle =
   | { kind: 'ramp-end'; index: number }
   | { kind: 'dwell-level'; index: number }
   | { kind: 'dwell-end'; index: number };
 
-export type HandleDelta = { minutes: number; celsius: number; axis: 'x' | 'y' };
+/**
+ * Pointer travel in minutes and degrees, on the axis the gesture moves along. A key on a ramp's end sets
+ * `rateStepCPerMin` instead: the rate changes by that much, whatever the travel.
+ */
+export type HandleDelta = { minutes: number; celsius: number; axis: 'x' | 'y'; rateStepCPerMin?: number };
 
 export type HandleEdit =
   | { ok: true; label: string; recipe: (draft: Draft<StudyParams>) => void }
@@ -54,7 +58,7 @@ export function handleEdit(original: StudyParams, handle: CycleHandle, delta: Ha
         },
       };
     }
-    const r = dragRampRate(span, delta.minutes);
+    const r = delta.rateStepCPerMin !== undefined ? stepRampRate(seg.rateCPerMin, delta.rateStepCPerMin) : dragRampRate(span, delta.minutes);
     if (!r.ok) return { ok: false, reason: `${name}: ${r.reason}` };
     return {
       ok: true,

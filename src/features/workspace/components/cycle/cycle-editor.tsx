@@ -30,8 +30,15 @@ type DragState = {
 
 let gestureCounter = 0;
 
-/** Keys for handles: arrows move by 1 (°C or min), Shift by 10. */
-function keyDelta(e: KeyboardEvent): HandleDelta | null {
+/**
+ * Keys for handles: arrows move by 1 (°C or min), Shift by 10; left and right on a ramp's end step its rate
+ * instead (0.1 °C/min, Shift 1), later being slower.
+ */
+function keyDelta(e: KeyboardEvent, handle: CycleHandle): HandleDelta | null {
+  if (handle.kind === 'ramp-end' && (e.key === 'ArrowLeft' || e.key === 'ArrowRight')) {
+    const step = e.shiftKey ? 1 : 0.1;
+    return { minutes: 0, celsius: 0, axis: 'x', rateStepCPerMin: e.key === 'ArrowRight' ? -step : step };
+  }
   const step = e.shiftKey ? 10 : 1;
   switch (e.key) {
     case 'ArrowUp':
@@ -111,6 +118,10 @@ export function CycleEditor({
   const pxPerC = y(0) - y(1);
 
   function apply(handle: CycleHandle, original: StudyParams, delta: HandleDelta, key: string, gesture: boolean) {
+    if (studyEditorStore.getState().meta?.readOnly) {
+      setRefusal('This is an earlier revision, read only: restore it as a new revision to change it.');
+      return;
+    }
     const edit = handleEdit(original, handle, delta);
     if (!edit.ok) {
       setRefusal(edit.reason);
@@ -169,7 +180,7 @@ export function CycleEditor({
   }
 
   function onHandleKeyDown(e: KeyboardEvent<SVGGElement>, handle: CycleHandle) {
-    const delta = keyDelta(e);
+    const delta = keyDelta(e, handle);
     if (!delta) return;
     e.preventDefault();
     if (handle.kind === 'dwell-end' && delta.axis !== 'x') return;
@@ -377,7 +388,7 @@ function SpanHandles({ span, name, x, y, dragging, rate, onPointerDown, onKeyDow
       handle={h}
       active={dragging === handleId(h)}
       label={`${name} end`}
-      hint="arrow up or down changes the target, left or right the rate"
+      hint="arrow up or down changes the target by 1 °C, left or right the rate by 0.1 °C/min (Shift: 10 °C, 1 °C/min)"
       valueNow={span.endC}
       valueText={`${span.endC} °C at ${rate ?? '?'} °C/min`}
       onPointerDown={onPointerDown}

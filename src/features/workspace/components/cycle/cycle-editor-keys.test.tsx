@@ -1,0 +1,75 @@
+// @vitest-environment jsdom
+import { beforeEach, describe, expect, it } from 'vitest';
+import { render, screen } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { referenceStudy } from '../../../../../shared/solver/demo-cards';
+import type { CycleSegment } from '../../../../../shared/schemas/study';
+import { CHART_MARGIN, TimeAxisProvider, makeTimeAxis } from '../../../../components/charts/time-axis';
+import { studyEditorStore } from '../../stores/study-editor-store';
+import { CycleEditor } from './cycle-editor';
+
+// The reference study's numbers move with the demo cards, so these checks compare against the loaded values.
+function renderEditor() {
+  return render(
+    <TimeAxisProvider axis={makeTimeAxis([0, 600], 600 + CHART_MARGIN.left + CHART_MARGIN.right)}>
+      <CycleEditor height={294} temperatureDomainC={[0, 250]} />
+    </TimeAxisProvider>,
+  );
+}
+
+const segments = (): CycleSegment[] => {
+  const c = studyEditorStore.getState().params!.cycle;
+  if (c.kind !== 'segments') throw new Error('expected segments');
+  return c.segments;
+};
+const rateOf = (i: number) => (segments()[i] as { rateCPerMin: number }).rateCPerMin;
+const round1 = (v: number) => Math.round(v * 10) / 10;
+
+describe('cycle editor keys on a ramp’s end', () => {
+  beforeEach(() => {
+    studyEditorStore.getState().load({ studyId: 'test', name: 'test', baseRevision: 1 }, referenceStudy());
+  });
+
+  it('left and right step the rate by 0.1 °C/min, later being slower; Shift steps by 1', async () => {
+    const user = userEvent.setup();
+    renderEditor();
+    const rate0 = rateOf(2);
+    const target0 = (segments()[2] as { targetC: number }).targetC;
+    screen.getByRole('slider', { name: 'Ramp 2 end' }).focus();
+    await user.keyboard('{ArrowRight}');
+    expect(rateOf(2)).toBe(round1(rate0 - 0.1));
+    await user.keyboard('{ArrowLeft}{ArrowLeft}');
+    expect(rateOf(2)).toBe(round1(rate0 + 0.1));
+    await user.keyboard('{Shift>}{ArrowLeft}{/Shift}');
+    expect(rateOf(2)).toBe(round1(rate0 + 1.1));
+    // the target stays where it was
+    expect(segments()[2]).toMatchObject({ targetC: target0 });
+  });
+
+  it('refuses a rate stepped to zero, with a message, and keeps the last rate', async () => {
+    const user = userEvent.setup();
+    studyEditorStore.getState().edit('slow', (d) => {
+      if (d.cycle.kind === 'segments') (d.cycle.segments[0] as { rateCPerMin: number }).rateCPerMin = 0.2;
+    });
+    renderEditor();
+    screen.getByRole('slider', { name: 'Ramp 1 end' }).focus();
+    await user.keyboard('{ArrowRight}');
+    expect(rateOf(0)).toBe(0.1);
+    await user.keyboard('{ArrowRight}');
+    expect(rateOf(0)).toBe(0.1);
+    expect(screen.getByTestId('cycle-refusal').textContent).toMatch(/Ramp 1: the rate would be 0 °C\/min: allowed > 0 °C\/min/);
+  });
+
+  it('up and down still move the target by 1 °C, and a dwell’s end still moves by 1 min', async () => {
+    const user = userEvent.setup();
+    renderEditor();
+    const target0 = (segments()[0] as { targetC: number }).targetC;
+    const hold0 = (segments()[1] as { holdMin: number }).holdMin;
+    screen.getByRole('slider', { name: 'Ramp 1 end' }).focus();
+    await user.keyboard('{ArrowDown}');
+    expect(segments()[0]).toMatchObject({ targetC: target0 - 1 });
+    screen.getByRole('slider', { name: 'Dwell 1 end' }).focus();
+    await user.keyboard('{ArrowRight}');
+    expect(segments()[1]).toMatchObject({ holdMin: hold0 + 1 });
+  });
+});
