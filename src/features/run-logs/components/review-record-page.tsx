@@ -2,7 +2,8 @@ import { Link, useParams } from 'react-router-dom';
 import { useRunLog } from '../api/run-logs-api';
 import { FindingsTable } from './findings-table';
 import { FlaggedChannels } from './flagged-channels';
-import { ReplayChart } from './replay-chart';
+import { GaugesChart, ReplayChart } from './replay-chart';
+import { SpecSummary } from './spec-summary';
 import { ReplayResults } from './replay-results';
 import { CAUTIONS, fmtTime, LoadError, Loading } from './status';
 
@@ -35,8 +36,10 @@ export function ReviewRecordPage() {
       <FlaggedChannels hygiene={rec.hygiene} />
       <h2 className="mt-5 font-semibold">Findings against the specification</h2>
       <FindingsTable findings={rec.spec.findings} empty="No findings." testId="record-spec" />
+      <SpecSummary spec={rec.spec} testId="record-spec-summary" />
       <h2 className="mt-5 font-semibold">Replay</h2>
       <ReplayChart record={rec} />
+      <GaugesChart record={rec} />
       <ReplayResults record={rec} />
       <h2 className="mt-5 font-semibold">Decision</h2>
       {r.review ? (

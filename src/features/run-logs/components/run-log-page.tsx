@@ -2,7 +2,8 @@ import { Link, useParams } from 'react-router-dom';
 import { useRunLog } from '../api/run-logs-api';
 import { FindingsTable } from './findings-table';
 import { FlaggedChannels } from './flagged-channels';
-import { ReplayChart } from './replay-chart';
+import { GaugesChart, ReplayChart } from './replay-chart';
+import { SpecSummary } from './spec-summary';
 import { ReplayResults } from './replay-results';
 import { ReviewSection } from './review-form';
 import { CAUTIONS, fmtTime, LoadError, Loading } from './status';
@@ -42,34 +43,15 @@ export function RunLogPage() {
         <h2 className={heading}>Against the specification</h2>
         <p className="mt-1 text-sm text-ink-soft">Leading TC: {rec.spec.leadingTc ?? '—'} · lagging TC: {rec.spec.laggingTc ?? '—'} · hottest part reading {rec.spec.maxPartC ?? '—'} °C</p>
         <FindingsTable findings={rec.spec.findings} empty="The run stayed within the study’s process limits and cycle." testId="spec-findings" />
-        {rec.spec.holds.length > 0 && (
-          <table className="mt-3 w-full border-collapse text-sm" data-testid="holds">
-            <thead>
-              <tr className="border-b border-rule text-left text-ink-soft">
-                <th className="py-1 pr-2 font-medium">Hold</th>
-                <th className="py-1 pr-2 text-right font-medium">Specified</th>
-                <th className="py-1 pr-2 text-right font-medium">Measured (lagging TC in band)</th>
-                <th className="py-1 pr-2 text-right font-medium">From – to (min)</th>
-              </tr>
-            </thead>
-            <tbody>
-              {rec.spec.holds.map((h) => (
-                <tr key={h.hold} className="border-b border-rule/60">
-                  <td className="py-1 pr-2">{h.hold}: {h.targetC} ± {h.bandC} °C</td>
-                  <td className="num py-1 pr-2 text-right">{h.specifiedMin} min</td>
-                  <td className="num py-1 pr-2 text-right">{h.measuredMin ?? '—'} min</td>
-                  <td className="num py-1 pr-2 text-right">{h.startMin ?? '—'} – {h.endMin ?? '—'}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        )}
+        <h3 className="mt-4 text-sm font-medium">Every check against its limit</h3>
+        <SpecSummary spec={rec.spec} />
       </div>
 
       <div className={panel} id="replay">
         <h2 className={heading}>Replay through the model</h2>
         <p className="mt-1 text-sm text-ink-soft">The study re-run with this run’s measured air{rec.channels.some((c) => c.role === 'tool') ? ', tool' : ''} and pressure in place of its cycle.</p>
         <ReplayChart record={rec} />
+        <GaugesChart record={rec} />
         <ReplayResults record={rec} />
       </div>
 
