@@ -73,3 +73,30 @@ describe('cycle editor keys on a ramp’s end', () => {
     expect(segments()[1]).toMatchObject({ holdMin: hold0 + 1 });
   });
 });
+
+describe('cycle handles as sliders', () => {
+  beforeEach(() => {
+    studyEditorStore.getState().load({ studyId: 'test', name: 'test', baseRevision: 1 }, referenceStudy());
+  });
+
+  it('each states its value, its range and its value in words with the unit', () => {
+    renderEditor();
+    const target = (segments()[0] as { targetC: number }).targetC;
+    const rate = rateOf(0);
+    const hold = (segments()[1] as { holdMin: number }).holdMin;
+    for (const slider of screen.getAllByRole('slider')) {
+      const now = Number(slider.getAttribute('aria-valuenow'));
+      expect(now).toBeGreaterThanOrEqual(Number(slider.getAttribute('aria-valuemin')));
+      expect(now).toBeLessThanOrEqual(Number(slider.getAttribute('aria-valuemax')));
+      expect(slider.getAttribute('aria-valuetext')).toMatch(/ (°C|min)/);
+    }
+    const rampEnd = screen.getByRole('slider', { name: 'Ramp 1 end' });
+    expect(rampEnd.getAttribute('aria-valuenow')).toBe(String(target));
+    expect(rampEnd.getAttribute('aria-valuemin')).toBe('0');
+    expect(rampEnd.getAttribute('aria-valuemax')).toBe('250');
+    expect(rampEnd.getAttribute('aria-valuetext')).toBe(`${target} °C at ${rate} °C/min`);
+    const dwellEnd = screen.getByRole('slider', { name: 'Dwell 1 end' });
+    expect(dwellEnd.getAttribute('aria-valuetext')).toBe(`${hold} min`);
+    expect(dwellEnd.getAttribute('aria-valuemin')).toBe('1');
+  });
+});

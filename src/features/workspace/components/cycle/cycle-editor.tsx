@@ -2,13 +2,13 @@ import { memo, useMemo, useRef, useState, type KeyboardEvent, type PointerEvent 
 import { kToC } from '../../../../../shared/units';
 import { produce } from 'immer';
 import { scaleLinear, type ScaleLinear } from 'd3-scale';
-import type { StudyParams } from '../../../../../shared/schemas/study';
+import { MAX_CYCLE_MIN, type StudyParams } from '../../../../../shared/schemas/study';
 import { TimeTicks, ValueTicks, useTimeAxis } from '../../../../components/charts/time-axis';
 import { seriesPath } from '../../../../components/charts/series-path';
 import { ScrubLine } from '../../../../components/charts/scrub-line';
 import { TEMPERATURE_SERIES } from '../../../../components/charts/result-charts';
 import { ChartExportControl } from '../../../../components/export/chart-export-control';
-import { cycleSpans, cycleVertices, type SegmentSpan } from '../../model/cycle-geometry';
+import { cycleEndMin, cycleSpans, cycleVertices, type SegmentSpan } from '../../model/cycle-geometry';
 import { handleEdit, handleId, segmentNames, type CycleHandle, type HandleDelta } from '../../model/cycle-handles';
 import { issuesUnder } from '../../model/study-validation';
 import { studyEditorStore, useStudyEditor } from '../../stores/study-editor-store';
@@ -230,6 +230,7 @@ export function CycleEditor({
               y={y}
               dragging={dragging}
               rate={(cycle.segments[span.index] as { rateCPerMin?: number }).rateCPerMin}
+              cycleMin={cycleEndMin(spans)}
               onPointerDown={onHandlePointerDown}
               onKeyDown={onHandleKeyDown}
             />
@@ -337,12 +338,17 @@ type HandleProps = {
   y: ScaleLinear<number, number>;
   dragging: string | null;
   rate: number | undefined;
+  /** the drawn cycle's length, which bounds how long a dwell can grow */
+  cycleMin: number;
   onPointerDown: (e: ReactPointerEvent<SVGGElement>, h: CycleHandle) => void;
   onKeyDown: (e: KeyboardEvent<SVGGElement>, h: CycleHandle) => void;
 };
 
 /** Handle shapes say which way they move: a diamond moves both ways, bars move across their length. */
-function SpanHandles({ span, name, x, y, dragging, rate, onPointerDown, onKeyDown }: HandleProps) {
+function SpanHandles({ span, name, x, y, dragging, rate, cycleMin, onPointerDown, onKeyDown }: HandleProps) {
+  // Temperatures range over the plot's scale (where the handle can be dragged to); a dwell from 1 min up to
+  // what the cycle's length allows.
+  const [lowC, highC] = y.domain();
   if (span.kind === 'hold') {
     const level: CycleHandle = { kind: 'dwell-level', index: span.index };
     const end: CycleHandle = { kind: 'dwell-end', index: span.index };
@@ -357,6 +363,8 @@ function SpanHandles({ span, name, x, y, dragging, rate, onPointerDown, onKeyDow
           label={`${name} temperature`}
           hint="arrow up or down changes the dwell temperature"
           valueNow={span.startC}
+          valueMin={lowC}
+          valueMax={highC}
           valueText={`${span.startC} °C`}
           onPointerDown={onPointerDown}
           onKeyDown={onKeyDown}
@@ -370,6 +378,8 @@ function SpanHandles({ span, name, x, y, dragging, rate, onPointerDown, onKeyDow
           label={`${name} end`}
           hint="arrow left or right changes the dwell length"
           valueNow={minutes}
+          valueMin={1}
+          valueMax={Math.max(minutes, Math.floor(MAX_CYCLE_MIN - (cycleMin - minutes)))}
           valueText={`${minutes} min`}
           onPointerDown={onPointerDown}
           onKeyDown={onKeyDown}
@@ -390,6 +400,8 @@ function SpanHandles({ span, name, x, y, dragging, rate, onPointerDown, onKeyDow
       label={`${name} end`}
       hint="arrow up or down changes the target by 1 °C, left or right the rate by 0.1 °C/min (Shift: 10 °C, 1 °C/min)"
       valueNow={span.endC}
+      valueMin={lowC}
+      valueMax={highC}
       valueText={`${span.endC} °C at ${rate ?? '?'} °C/min`}
       onPointerDown={onPointerDown}
       onKeyDown={onKeyDown}
@@ -406,6 +418,8 @@ function Handle({
   label,
   hint,
   valueNow,
+  valueMin,
+  valueMax,
   valueText,
   onPointerDown,
   onKeyDown,
@@ -417,6 +431,8 @@ function Handle({
   label: string;
   hint: string;
   valueNow: number;
+  valueMin: number;
+  valueMax: number;
   valueText: string;
   onPointerDown: HandleProps['onPointerDown'];
   onKeyDown: HandleProps['onKeyDown'];
@@ -430,6 +446,8 @@ function Handle({
       aria-label={label}
       aria-description={hint}
       aria-valuenow={valueNow}
+      aria-valuemin={valueMin}
+      aria-valuemax={valueMax}
       aria-valuetext={valueText}
       data-handle={handleId(handle)}
       data-export="skip"
