@@ -91,6 +91,11 @@ test('upload a run log, map its columns, see the long hold flagged, open the rep
 
   // A viewer sees the run but cannot decide, not in the page and not through the API.
   const viewer = await signedIn(browser, 'ines.varga');
+  // no upload flow to walk through only to be refused at the end
+  await viewer.goto(`/studies/${studyId}/run-logs`);
+  await expect(viewer.getByTestId('upload-not-allowed')).toContainText('your role: viewer');
+  await expect(viewer.getByTestId('run-log-list')).toBeVisible();
+  await expect(viewer.getByTestId('upload-panel')).toHaveCount(0);
   await viewer.goto(runLogUrl);
   await expect(viewer.getByTestId('review-not-allowed')).toContainText('your role: viewer');
   await expect(viewer.getByTestId('review-form')).toHaveCount(0);
