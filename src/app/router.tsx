@@ -22,6 +22,7 @@ export const router = createBrowserRouter([
       { path: 'studies/:studyId/history', lazy: () => import('./routes/library/study-history') },
       { path: 'invite/:token', lazy: () => import('./routes/library/accept-invite') },
       { path: 'dev/mailbox', lazy: () => import('./routes/library/mailbox') },
+      { path: 'admin', lazy: () => import('./routes/library/admin') },
       // Run logs and reviews
       { path: 'studies/:studyId/run-logs', lazy: () => import('./routes/run-logs/study-run-logs') },
       { path: 'parts/:partId/run-logs', lazy: () => import('./routes/run-logs/part-run-logs') },

@@ -4,6 +4,8 @@ import { api } from '../../../lib/api-client';
 export type AuditEvent = {
   id: number;
   action: string;
+  /** one readable sentence, with names, written by the server */
+  sentence: string;
   subjectType: string;
   subjectId: number | null;
   details: Record<string, unknown> | null;

@@ -12,6 +12,8 @@ export type Baseline = {
   pinnedAt: string | null;
   pinnedBy: Person;
 };
+export type ForkOrigin = { revisionId: number; studyId: number; studyTitle: string; number: number; author: { id: number; name: string } | null };
+export type ActivityItem = { id: number; action: string; sentence: string; createdAt: string; actor: Person; studyId: number | null };
 export type TeamHome = {
   team: { id: number; slug: string; name: string; description: string | null };
   role: 'viewer' | 'engineer' | 'lead' | null;
@@ -22,10 +24,13 @@ export type TeamHome = {
     latestRevisionNumber: number;
     updatedAt: string;
     forkedFromRevisionId: number | null;
+    forkedFrom: ForkOrigin | null;
     owner: Person;
     part: { id: number; partNumber: string; name: string } | null;
   }[];
   recentRevisions: { id: number; studyId: number; studyTitle: string; number: number; message: string; restoredFromNumber: number | null; createdAt: string; author: Person }[];
+  /** who changed what: the last audited changes of every kind */
+  activity: ActivityItem[];
 };
 
 export const getTeamHome = (teamId: string) => api.get<TeamHome>(`/teams/${encodeURIComponent(teamId)}`);

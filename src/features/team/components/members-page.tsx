@@ -3,6 +3,8 @@ import { Link, useParams } from 'react-router-dom';
 import { useMembers, type Member } from '../api/get-members';
 import { useTeamHome } from '../api/get-team-home';
 import { useChangeRole } from '../api/change-role';
+import { useRemoveMember } from '../api/remove-member';
+import { useTeams } from '../api/get-teams';
 import { useCreateInvite, useInvites, useResendInvite } from '../api/invites';
 import { useAudit } from '../api/get-audit';
 import { fmtTime } from '../../../lib/format-time';
@@ -42,24 +44,36 @@ function InviteForm({ teamId }: { teamId: string }) {
   );
 }
 
-export function MembersPage() {
+/**
+ * A team's members. Leads, and site admins (who manage every team's members
+ * without reading its studies), change roles, remove members, invite, and
+ * read the audit trail.
+ */
+export function MembersPage({ isAdmin = false }: { isAdmin?: boolean }) {
   const { teamId = '' } = useParams();
   const home = useTeamHome(teamId);
+  const teams = useTeams();
   const members = useMembers(teamId);
-  const isLead = home.data?.role === 'lead';
+  const role = home.data?.role ?? teams.data?.find((t) => String(t.id) === teamId)?.role ?? null;
+  const isLead = role === 'lead' || isAdmin;
+  const teamName = home.data?.team.name ?? teams.data?.find((t) => String(t.id) === teamId)?.name ?? 'Team';
   const invites = useInvites(teamId, isLead);
   const audit = useAudit(teamId, isLead);
   const changeRole = useChangeRole();
+  const remove = useRemoveMember();
   const resend = useResendInvite();
 
   if (members.isPending) return <div className="p-6"><Loading what="members" /></div>;
   if (members.isError) return <div className="p-6"><QueryError error={members.error} what="the members" /></div>;
   return (
     <section className="mx-auto max-w-5xl px-4 py-6">
-      <p className="text-sm"><Link className="text-slate underline" to={`/teams/${teamId}`}>← {home.data?.team.name ?? 'Team'}</Link></p>
-      <h1 className="mt-1 text-2xl font-semibold">Members</h1>
+      <p className="text-sm">
+        {role ? <Link className="text-slate underline" to={`/teams/${teamId}`}>← {teamName}</Link> : <Link className="text-slate underline" to="/admin">← Site administration</Link>}
+      </p>
+      <h1 className="mt-1 text-2xl font-semibold">Members{role ? '' : ` of ${teamName}`}</h1>
+      {members.data.length === 0 && <p className="mt-2 text-ink-soft">No members yet. Invite a lead below; the link in the mail brings them in.</p>}
       <table className="mt-3 w-full text-sm">
-        <thead className="text-left text-ink-faint"><tr><th>Name</th><th>Login</th><th>E-mail</th><th>Role</th><th>Since</th></tr></thead>
+        <thead className="text-left text-ink-faint"><tr><th>Name</th><th>Login</th><th>E-mail</th><th>Role</th><th>Since</th>{isLead && <th />}</tr></thead>
         <tbody>
           {members.data.map((m) => (
             <tr key={m.userId} className="border-t border-rule">
@@ -81,11 +95,24 @@ export function MembersPage() {
                 )}
               </td>
               <td className="text-ink-faint">{fmtTime(m.since)}</td>
+              {isLead && (
+                <td className="text-right">
+                  <button
+                    type="button"
+                    className="text-fault underline disabled:opacity-50"
+                    disabled={remove.isPending}
+                    onClick={() => window.confirm(`Remove ${m.name} from ${teamName}? They lose access to its studies at once.`) && remove.mutate({ teamId, userId: m.userId })}
+                  >
+                    Remove
+                  </button>
+                </td>
+              )}
             </tr>
           ))}
         </tbody>
       </table>
       {changeRole.isError && <p role="alert" className="mt-2 text-sm text-fault">{changeRole.error.message}</p>}
+      {remove.isError && <p role="alert" className="mt-2 text-sm text-fault">Not removed: {remove.error.message}</p>}
 
       {isLead && (
         <>
@@ -120,9 +147,7 @@ export function MembersPage() {
           <ol className="mt-2 space-y-1 text-sm" data-testid="audit-trail">
             {audit.data?.map((e) => (
               <li key={e.id}>
-                <span className="text-ink-faint">{fmtTime(e.createdAt)}</span> <span className="font-medium">{e.actor?.name ?? 'system'}</span>{' '}
-                <code className="rounded bg-rule/40 px-1">{e.action}</code>{' '}
-                <span className="text-ink-soft">{describe(e.details)}</span>
+                <span className="text-ink-faint">{fmtTime(e.createdAt)}</span> <span className="font-medium">{e.actor?.name ?? 'system'}</span> {e.sentence}
               </li>
             ))}
           </ol>
@@ -130,12 +155,4 @@ export function MembersPage() {
       )}
     </section>
   );
-}
-
-function describe(details: Record<string, unknown> | null): string {
-  if (!details) return '';
-  return Object.entries(details)
-    .filter(([, v]) => v !== null && typeof v !== 'object')
-    .map(([k, v]) => `${k}: ${String(v)}`)
-    .join(' · ');
 }
