@@ -1,6 +1,6 @@
 // @vitest-environment jsdom
 import { beforeEach, describe, expect, it } from 'vitest';
-import { render, screen } from '@testing-library/react';
+import { fireEvent, render, screen } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { referenceStudy } from '../../../../../shared/solver/demo-cards';
 import type { CycleSegment } from '../../../../../shared/schemas/study';
@@ -98,5 +98,24 @@ describe('cycle handles as sliders', () => {
     const dwellEnd = screen.getByRole('slider', { name: 'Dwell 1 end' });
     expect(dwellEnd.getAttribute('aria-valuetext')).toBe(`${hold} min`);
     expect(dwellEnd.getAttribute('aria-valuemin')).toBe('1');
+  });
+});
+
+describe('dragging a handle', () => {
+  beforeEach(() => {
+    studyEditorStore.getState().load({ studyId: 'test', name: 'test', baseRevision: 1 }, referenceStudy());
+  });
+
+  it('takes the pointer and starts no text selection, until released', () => {
+    renderEditor();
+    const handle = screen.getByRole('slider', { name: 'Dwell 1 end' });
+    const captured: number[] = [];
+    (handle as unknown as { setPointerCapture: (id: number) => void }).setPointerCapture = (id) => captured.push(id);
+    // fireEvent returns false when a listener called preventDefault
+    expect(fireEvent.pointerDown(handle, { clientX: 200, clientY: 100, button: 0, pointerId: 7 })).toBe(false);
+    expect(captured).toEqual([7]);
+    expect(fireEvent(document, new Event('selectstart', { bubbles: true, cancelable: true }))).toBe(false);
+    fireEvent.pointerUp(window, { clientX: 200, clientY: 100, pointerId: 7 });
+    expect(fireEvent(document, new Event('selectstart', { bubbles: true, cancelable: true }))).toBe(true);
   });
 });

@@ -140,8 +140,12 @@ export function CycleEditor({
 
   function onHandlePointerDown(e: ReactPointerEvent<SVGGElement>, handle: CycleHandle) {
     if (e.button !== 0) return;
+    // A drag that leaves the chart must not select the text it passes over (the setup column): no default
+    // action for this press, the pointer kept by the handle until release, and no selection started meanwhile.
     e.preventDefault();
     e.stopPropagation();
+    e.currentTarget.setPointerCapture?.(e.pointerId);
+    window.getSelection()?.removeAllRanges();
     (e.currentTarget as Element & { focus?: () => void }).focus?.();
     gestureCounter += 1;
     drag.current = {
@@ -166,14 +170,17 @@ export function CycleEditor({
       }
       apply(d.handle, d.original, { minutes: dx / pxPerMin, celsius: -dy / pxPerC, axis: d.axis }, d.key, true);
     };
+    const noSelect = (ev: Event) => ev.preventDefault();
     const onUp = () => {
       drag.current = null;
+      document.removeEventListener('selectstart', noSelect);
       setDragging(null);
       resultsStore.getState().setDragging(false);
       window.removeEventListener('pointermove', onMove);
       window.removeEventListener('pointerup', onUp);
       window.removeEventListener('pointercancel', onUp);
     };
+    document.addEventListener('selectstart', noSelect);
     window.addEventListener('pointermove', onMove);
     window.addEventListener('pointerup', onUp);
     window.addEventListener('pointercancel', onUp);
@@ -189,6 +196,7 @@ export function CycleEditor({
   }
 
   function onPlotPointerDown(e: ReactPointerEvent<SVGRectElement>) {
+    e.preventDefault();
     const rect = e.currentTarget.getBoundingClientRect();
     resultsStore.getState().scrubTo(axis.x.invert(e.clientX - rect.left));
   }
