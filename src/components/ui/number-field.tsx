@@ -15,6 +15,8 @@ export type NumberFieldProps = {
   /** hide the label visually (tables), keep it for assistive tech */
   compact?: boolean;
   testId?: string;
+  /** why the field does not apply just now (e.g. a band for a dwell that starts on the clock); set, it is disabled */
+  disabledReason?: string;
 };
 
 const format = (v: number, digits: number) => (Number.isFinite(v) ? String(Number(v.toFixed(digits))) : '');
@@ -31,7 +33,7 @@ function parse(text: string): number | null {
  * validates and the workspace refuses to solve invalid studies); text that is
  * not a number stays local and is marked here.
  */
-export function NumberField({ label, unit, value, onCommit, issue, step = 1, digits = 4, compact, testId }: NumberFieldProps) {
+export function NumberField({ label, unit, value, onCommit, issue, step = 1, digits = 4, compact, testId, disabledReason }: NumberFieldProps) {
   const id = useId();
   const [text, setText] = useState(() => format(value, digits));
   const [localIssue, setLocalIssue] = useState<string | null>(null);
@@ -75,7 +77,8 @@ export function NumberField({ label, unit, value, onCommit, issue, step = 1, dig
       <div
         className={`flex items-baseline rounded border bg-paper-raised px-1.5 focus-within:outline-2 focus-within:outline-slate ${
           shown ? 'border-fault bg-fault-soft/40' : 'border-rule'
-        }`}
+        } ${disabledReason ? 'opacity-50' : ''}`}
+        title={disabledReason}
       >
         <input
           id={id}
@@ -86,7 +89,8 @@ export function NumberField({ label, unit, value, onCommit, issue, step = 1, dig
           className="num w-full min-w-0 bg-transparent py-0.5 text-sm outline-none"
           value={text}
           aria-invalid={shown ? true : undefined}
-          aria-describedby={shown ? `${id}-issue` : undefined}
+          aria-describedby={shown ? `${id}-issue` : disabledReason ? `${id}-why` : undefined}
+          disabled={disabledReason !== undefined}
           data-testid={testId}
           onChange={(e) => change(e.target.value)}
           onKeyDown={onKeyDown}
@@ -104,6 +108,11 @@ export function NumberField({ label, unit, value, onCommit, issue, step = 1, dig
           </span>
         )}
       </div>
+      {disabledReason && !shown && (
+        <p id={`${id}-why`} className="text-[11px] leading-snug text-ink-faint">
+          {disabledReason}
+        </p>
+      )}
       {shown && (
         <p id={`${id}-issue`} role="alert" className="text-xs leading-snug text-fault">
           {shown}

@@ -54,4 +54,15 @@ describe('segment table', () => {
     const after = studyEditorStore.getState().params!.cycle;
     expect(after.kind === 'segments' && after.segments.length).toBe(5);
   });
+
+  it('disables the band of a dwell that starts on the clock, says why, and enables it for a lagging-part start', async () => {
+    const user = userEvent.setup();
+    render(<SegmentTable />);
+    await user.selectOptions(screen.getByLabelText('Dwell 1 starts'), 'clock');
+    const band = screen.getByLabelText('Dwell 1 band') as HTMLInputElement;
+    expect(band.disabled).toBe(true);
+    expect(document.getElementById(band.getAttribute('aria-describedby')!)!.textContent).toBe('not used: this dwell starts on the clock');
+    await user.selectOptions(screen.getByLabelText('Dwell 1 starts'), 'lagging-part');
+    expect((screen.getByLabelText('Dwell 1 band') as HTMLInputElement).disabled).toBe(false);
+  });
 });

@@ -144,7 +144,16 @@ function SegmentRow({
             />
           </td>
           <td className="py-1 pr-2">
-            <NumberField compact label={`${name} band`} unit="±°C" value={s.bandC} issue={issue('bandC')} onCommit={(v) => set('bandC', `${name} band ${v} °C`, v)} />
+            <NumberField
+              compact
+              label={`${name} band`}
+              unit="±°C"
+              value={s.bandC}
+              issue={issue('bandC')}
+              onCommit={(v) => set('bandC', `${name} band ${v} °C`, v)}
+              // The band only decides when a lagging-part dwell starts; a clock-started dwell never reads it.
+              disabledReason={s.start === 'clock' ? 'not used: this dwell starts on the clock' : undefined}
+            />
           </td>
         </>
       ) : (
