@@ -20,7 +20,17 @@ export type PartDetail = {
     pinnedAt: string | null;
     pinnedBy: Person;
   } | null;
-  studies: { id: number; title: string; latestRevisionNumber: number; forkedFromRevisionId: number | null; updatedAt: string; owner: Person }[];
+  studies: {
+    id: number;
+    title: string;
+    latestRevisionNumber: number;
+    forkedFromRevisionId: number | null;
+    forkedFrom: { revisionId: number; studyId: number; studyTitle: string; number: number; author: { id: number; name: string } | null } | null;
+    updatedAt: string;
+    owner: Person;
+  }[];
+  /** the part's own history, newest first: baseline pins, new studies and forks, run logs and review decisions */
+  history: { id: number; action: string; sentence: string; createdAt: string; actor: Person; studyId: number | null }[];
 };
 
 /** The figures a revision's summary carries (recomputed by the server's solver). */

@@ -1,6 +1,7 @@
 import { Link, useParams } from 'react-router-dom';
 import { usePart } from '../api/get-part';
 import { SummaryFigures } from './summary-figures';
+import { NewStudyForm } from './new-study-form';
 import { fmtTime } from '../../../lib/format-time';
 import { Loading, QueryError } from '../../../components/ui/query-state';
 
@@ -10,6 +11,7 @@ export function PartPage() {
   if (part.isPending) return <div className="p-6"><Loading what="the part" /></div>;
   if (part.isError) return <div className="p-6"><QueryError error={part.error} what="the part" /></div>;
   const p = part.data;
+  const canWrite = p.role === 'engineer' || p.role === 'lead';
   return (
     <section className="mx-auto max-w-5xl px-4 py-6">
       <p className="text-sm"><Link className="text-slate underline" to={`/teams/${p.teamId}`}>← Team</Link></p>
@@ -35,17 +37,42 @@ export function PartPage() {
 
       <h2 className="mt-6 text-sm font-semibold uppercase tracking-wide text-ink-soft">Studies</h2>
       {p.studies.length === 0 ? (
-        <p className="mt-2 text-ink-soft">No studies on this part yet.</p>
+        <p className="mt-2 text-ink-soft">No studies on this part yet.{canWrite ? ' Start the first one below.' : ''}</p>
       ) : (
         <ul className="mt-2 divide-y divide-rule rounded border border-rule bg-paper-raised text-sm">
           {p.studies.map((s) => (
             <li key={s.id} className="flex flex-wrap items-baseline gap-2 p-3">
               <Link className="font-medium text-slate underline" to={`/studies/${s.id}/history`}>{s.title}</Link>
-              <span className="text-ink-faint">r{s.latestRevisionNumber} · {s.owner?.name} · {fmtTime(s.updatedAt)}{s.forkedFromRevisionId ? ' · fork' : ''}</span>
+              <span className="text-ink-faint">r{s.latestRevisionNumber} · {s.owner?.name} · {fmtTime(s.updatedAt)}</span>
+              {s.forkedFrom && (
+                <span className="w-full text-ink-soft" data-testid="fork-origin">
+                  forked from <Link className="text-slate underline" to={`/studies/${s.forkedFrom.studyId}/history`}>{s.forkedFrom.studyTitle} r{s.forkedFrom.number}</Link>
+                  {s.forkedFrom.author && <> by {s.forkedFrom.author.name}</>}
+                </span>
+              )}
               <Link className="ml-auto text-slate underline" to={`/studies/${s.id}`}>Open in workspace</Link>
             </li>
           ))}
         </ul>
+      )}
+      {canWrite && (
+        <>
+          <h2 className="mt-6 text-sm font-semibold uppercase tracking-wide text-ink-soft">New study</h2>
+          <NewStudyForm part={p} />
+        </>
+      )}
+
+      <h2 className="mt-8 text-sm font-semibold uppercase tracking-wide text-ink-soft">History of this part</h2>
+      {p.history.length === 0 ? (
+        <p className="mt-2 text-ink-soft">Nothing recorded yet: baseline pins, new studies, run logs and review decisions show here.</p>
+      ) : (
+        <ol className="mt-2 space-y-1 text-sm" data-testid="part-history">
+          {p.history.map((e) => (
+            <li key={e.id}>
+              <span className="text-ink-faint">{fmtTime(e.createdAt)}</span> <span className="font-medium">{e.actor?.name ?? 'system'}</span> {e.sentence}
+            </li>
+          ))}
+        </ol>
       )}
     </section>
   );
