@@ -87,6 +87,11 @@ test('upload a run log, map its columns, see the long hold flagged, open the rep
   await expect(engineer.getByTestId('replay-chart').locator('path[data-series="replay-tool-side"]')).toHaveCount(1);
   await expect(engineer.getByTestId('replay-chart').locator('path[data-series^="baseline-"]')).toHaveCount(1);
   await expect(engineer.getByTestId('replay-at-tcs')).toContainText('TC2 mid-plane');
+  await expect(engineer.getByTestId('baseline-name')).toContainText(/^Baseline: “.+”, revision \d+, part TB-2407$/);
+  await expect(engineer.getByTestId('gauge-pressure').locator('path[data-series="pressure"]')).toHaveCount(1);
+  await expect(engineer.getByTestId('gauge-vacuum').locator('path[data-series="vacuum"]')).toHaveCount(1);
+  await expect(engineer.getByTestId('spec-summary').locator('tr[data-check="hold-time-2"]')).toHaveAttribute('data-pass', 'false');
+  await expect(engineer.getByTestId('spec-summary').locator('tr[data-check="hold-time-1"]')).toHaveAttribute('data-pass', 'true');
   await expect(engineer.getByTestId('review-not-allowed')).toContainText('Only a lead');
 
   // A viewer sees the run but cannot decide, not in the page and not through the API.

@@ -63,6 +63,17 @@ describe('the demo run log in the seed', () => {
     expect(detail.body.record.spec.findings[0].message).toMatch(/^hold 2 at 180 °C lasted 17\d(\.\d+)? min/);
     expect(detail.body.record.replay.summary.finalCureMin).toBeGreaterThan(0.5);
     expect(detail.body.role).toBe('viewer');
+    // the baseline by name, not only "r<n>", and its stress beside the replay's
+    const part = (await h.db.models.Part.findByPk(partId))!;
+    const pinned = (await h.db.models.Revision.findByPk(part.baselineRevisionId!))!;
+    const pinnedStudy = (await h.db.models.Study.findByPk(pinned.studyId))!;
+    expect(detail.body.baseline).toEqual({
+      studyId: pinnedStudy.id,
+      studyTitle: pinnedStudy.title,
+      number: pinned.number,
+      part: { id: partId, partNumber: part.partNumber, name: part.name },
+    });
+    expect(typeof detail.body.record.replay.baseline.maxTransverseStressMPa).toBe('number');
   });
 });
 

@@ -238,11 +238,27 @@ export async function runLogDetail(id: number) {
   if (!u) throw notFound(`Run log ${id} does not exist.`);
   const study = u.studyId ? await Study.findByPk(u.studyId, { attributes: ['id', 'title', 'partId'] }) : null;
   const part = study ? await Part.findByPk(study.partId, { attributes: ['id', 'partNumber', 'name'] }) : null;
+  const record = u.parsed as RunLogRecord;
   return {
     ...runLogSummaryView(u),
     study: study ? { id: study.id, title: study.title } : null,
     part: part ? { id: part.id, partNumber: part.partNumber, name: part.name } : null,
-    record: u.parsed as RunLogRecord,
+    baseline: await baselineName(record),
+    record,
+  };
+}
+
+/** The replay's baseline by name (study title, revision, part): "r2" alone does not say which study's r2. */
+async function baselineName(record: RunLogRecord) {
+  const b = record.replay?.baseline;
+  if (!b) return null;
+  const study = await Study.findByPk(b.studyId, { attributes: ['id', 'title', 'partId'] });
+  const part = study ? await Part.findByPk(study.partId, { attributes: ['id', 'partNumber', 'name'] }) : null;
+  return {
+    studyId: b.studyId,
+    studyTitle: study?.title ?? null,
+    number: b.number,
+    part: part ? { id: part.id, partNumber: part.partNumber, name: part.name } : null,
   };
 }
 

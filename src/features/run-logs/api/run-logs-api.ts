@@ -34,6 +34,8 @@ export interface RunLogListItem {
 export interface RunLogDetail extends RunLogListItem {
   study: { id: number; title: string } | null;
   part: { id: number; partNumber: string; name: string } | null;
+  /** the part's baseline the replay is compared with, by name */
+  baseline: { studyId: number; studyTitle: string | null; number: number; part: { id: number; partNumber: string; name: string } | null } | null;
   record: RunLogRecord;
   role: 'viewer' | 'engineer' | 'lead' | null;
 }

@@ -1,12 +1,23 @@
 import type { RunLogRecord } from '../../../../shared/run-log/index';
+import type { RunLogDetail } from '../api/run-logs-api';
 
 const f = (v: number | null | undefined, digits = 3) => (v === null || v === undefined ? '—' : String(Number(v.toPrecision(digits))));
 
+/** "Baseline: <study title>, revision 2, part TB-2407": which prediction the replay is set beside. */
+export function baselineLabel(record: RunLogRecord, named: RunLogDetail['baseline']): string | null {
+  const b = record.replay?.baseline;
+  if (!b) return null;
+  const study = named?.studyTitle ? `“${named.studyTitle}”` : `study ${b.studyId}`;
+  const part = named?.part ? `, part ${named.part.partNumber}` : '';
+  return `Baseline: ${study}, revision ${b.number}${part}`;
+}
+
 /** Replay figures beside the baseline's, and the predictions at each thermocouple's place. */
-export function ReplayResults({ record }: { record: RunLogRecord }) {
+export function ReplayResults({ record, baseline }: { record: RunLogRecord; baseline: RunLogDetail['baseline'] }) {
   const replay = record.replay;
   if (!replay) return <p className="mt-2 text-sm text-fault">The replay could not run: {record.replayError}</p>;
   const b = replay.baseline?.summary;
+  const baseStress = replay.baseline?.maxTransverseStressMPa;
   const rows: [string, number, number | undefined, string][] = [
     ['Lowest final degree of cure', replay.summary.finalCureMin, b?.finalCureMin, ''],
     ['Final Tg', replay.summary.finalTgC, b?.finalTgC, '°C'],
@@ -23,7 +34,7 @@ export function ReplayResults({ record }: { record: RunLogRecord }) {
           <tr className="border-b border-rule text-left text-ink-soft">
             <th className="py-1 pr-2 font-medium">Predicted</th>
             <th className="py-1 pr-2 text-right font-medium">This run (replay)</th>
-            <th className="py-1 pr-2 text-right font-medium">{replay.baseline ? `Baseline r${replay.baseline.number}` : 'Baseline'}</th>
+            <th className="py-1 pr-2 text-right font-medium" data-testid="baseline-name">{baselineLabel(record, baseline) ?? 'Baseline'}</th>
           </tr>
         </thead>
         <tbody>
@@ -37,7 +48,9 @@ export function ReplayResults({ record }: { record: RunLogRecord }) {
           <tr className="border-b border-rule/60">
             <td className="py-1 pr-2">Largest transverse ply stress after demould</td>
             <td className="num py-1 pr-2 text-right">{f(replay.maxTransverseStressMPa)} MPa</td>
-            <td className="py-1 pr-2" />
+            <td className="num py-1 pr-2 text-right">
+              {!replay.baseline ? 'no baseline pinned' : baseStress === undefined ? 'not kept in this record' : `${f(baseStress)} MPa`}
+            </td>
           </tr>
         </tbody>
       </table>

@@ -40,7 +40,7 @@ export function ReviewRecordPage() {
       <h2 className="mt-5 font-semibold">Replay</h2>
       <ReplayChart record={rec} />
       <GaugesChart record={rec} />
-      <ReplayResults record={rec} />
+      <ReplayResults record={rec} baseline={r.baseline} />
       <h2 className="mt-5 font-semibold">Decision</h2>
       {r.review ? (
         <div data-testid="record-decision" className="text-sm">

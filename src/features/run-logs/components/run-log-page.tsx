@@ -52,7 +52,7 @@ export function RunLogPage() {
         <p className="mt-1 text-sm text-ink-soft">The study re-run with this run’s measured air{rec.channels.some((c) => c.role === 'tool') ? ', tool' : ''} and pressure in place of its cycle.</p>
         <ReplayChart record={rec} />
         <GaugesChart record={rec} />
-        <ReplayResults record={rec} />
+        <ReplayResults record={rec} baseline={r.baseline} />
       </div>
 
       <div className={panel}>
