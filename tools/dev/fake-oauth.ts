@@ -50,6 +50,11 @@ export function createFakeOAuthApp() {
   app.use(express.urlencoded({ extended: false }));
   app.use(express.json());
 
+  // Browsers ask any page's origin for /favicon.ico; answering "no content" keeps a 404 out of every sign-in.
+  app.get('/favicon.ico', (_req, res) => {
+    res.status(204).end();
+  });
+
   app.get('/health', (_req, res) => {
     res.json({ service: FAKE_OAUTH_SIGNATURE });
   });
@@ -63,7 +68,7 @@ export function createFakeOAuthApp() {
         `<li><a data-login="${escapeHtml(u.login)}" href="/login/oauth/choose?login=${encodeURIComponent(u.login)}&${base}">` +
         `<strong>${escapeHtml(u.name)}</strong> <span>${escapeHtml(u.login)} · ${u.isAdmin ? 'site admin' : escapeHtml(u.role ?? '')}</span></a></li>`,
     ).join('');
-    res.type('html').send(`<!doctype html><html lang="en"><head><meta charset="utf-8"><title>Local sign-in (fake provider)</title>
+    res.type('html').send(`<!doctype html><html lang="en"><head><meta charset="utf-8"><title>Local sign-in (fake provider)</title><link rel="icon" href="data:,">
 <style>body{font:15px system-ui,sans-serif;max-width:34rem;margin:3rem auto;color:#1d2430}li{margin:.4rem 0}a{display:block;padding:.6rem .8rem;border:1px solid #c9d1dc;border-radius:6px;text-decoration:none;color:inherit}a:hover{background:#eef3f8}span{color:#5b6675;font-size:13px}label{display:block;margin:.4rem 0}input{font:inherit;padding:.3rem;width:100%}</style></head>
 <body><h1>Local sign-in</h1><p>This page stands in for the OAuth provider on this machine. Pick a demo person:</p><ul>${rows}</ul>
 <h2>Someone new</h2><form method="get" action="/login/oauth/choose">
