@@ -1,5 +1,6 @@
 import type { StudyParams } from '../schemas/study';
 import { simulate } from '../solver/simulate';
+import { runLogMappingSchema } from './column-mapping';
 import { checkHygiene } from './hygiene';
 import { parseRunLog, type ParseOptions } from './parse-run-log';
 import { chartSeries, maxTransverseStressMPa, predictionTrace, predictionsAtTcs, type RunLogRecord } from './record';
@@ -7,6 +8,7 @@ import { replayInput } from './replay';
 import { round } from './series';
 import { checkSpec } from './spec-check';
 import type { RunLog } from './types';
+import { logWarningFindings } from './upload-warnings';
 
 // The whole analysis of one uploaded run log, in the order the checks depend on each other: read the file
 // with the confirmed mapping (refusing it whole if broken), hygiene first, then the spec check and the
@@ -25,6 +27,8 @@ export interface AnalyseInput {
 export function analyseRunLog(input: AnalyseInput): { record: RunLogRecord; log: RunLog } {
   const log = parseRunLog(input.text, input.mapping, input.parse);
   const hygiene = checkHygiene(log);
+  // a guessed time unit or a very short log: allowed after the uploader confirmed, kept on the record
+  hygiene.findings.unshift(...logWarningFindings(log, runLogMappingSchema.parse(input.mapping)));
   const spec = checkSpec(log, input.params, { excluded: hygiene.excluded });
   let replay: RunLogRecord['replay'] = null;
   let replayError: string | null = null;

@@ -12,3 +12,4 @@ export { replayInput, ReplayInputError, type ReplayOptions } from './replay';
 export { demoRunLogCsv, DEMO_RUN_LOG_FILE_NAME, DEMO_RUN_LOG_EXCURSION } from './demo-run-log';
 export * from './record';
 export { analyseRunLog, type AnalyseInput } from './analyse';
+export { uploadWarnings, logWarningFindings } from './upload-warnings';

@@ -36,6 +36,10 @@ export const AIR_HEATING_K_PER_MIN = 0.2;
 export const GAP_FACTOR = 5;
 export const GAP_MIN_S = 60;
 
+/** A log shorter than this (min) or with fewer rows cannot show a cure cycle; it is warned about, not refused. */
+export const SHORT_LOG_MIN = 30;
+export const SHORT_LOG_ROWS = 20;
+
 // --- Spec check (common practice, no source) ---------------------------------------------------------------
 /** Rates are taken over this window (min) so single-sample jitter does not read as a rate. */
 export const RATE_WINDOW_MIN = 5;

@@ -44,6 +44,12 @@ export interface RunLogInspection {
   headers: string[];
   /** the first rows as text, for the mapping step's preview table */
   previewRows: string[][];
+  /** the first data row, and the last one when the text read holds it (for the span of the log) */
+  firstRow: string[];
+  lastRow: string[] | null;
+  /** data rows read, and whether that is the whole file */
+  rowsSeen: number;
+  wholeFile: boolean;
   proposal: ColumnProposal[];
   mapping: RunLogMapping;
 }
@@ -151,6 +157,13 @@ export function inspectRunLog(input: string, options: Pick<ParseOptions, 'byteLe
     return { header, numbers, timestamps, filled };
   });
   const proposal = proposeMapping(samples);
+  // papaparse stops at `preview` rows: fewer rows than that means the text ran out, i.e. the whole file
+  const wholeFile = head.data.length < PREAMBLE_MAX + INSPECT_ROWS + 1;
+  let lastRow: string[] | null = wholeFile ? (dataRows[dataRows.length - 1] ?? null) : (tailRows[tailRows.length - 1] ?? null);
+  if (!lastRow) {
+    const end = Papa.parse<string[]>(text.slice(text.indexOf('\n', Math.max(0, text.length - 4096)) + 1), { delimiter, skipEmptyLines: 'greedy' }).data;
+    lastRow = end.filter((r) => r.length === headers.length).pop() ?? null;
+  }
   return {
     delimiter,
     decimalComma,
@@ -158,6 +171,10 @@ export function inspectRunLog(input: string, options: Pick<ParseOptions, 'byteLe
     firstLine,
     headers,
     previewRows: dataRows.slice(0, 10),
+    firstRow: dataRows[0],
+    lastRow,
+    rowsSeen: dataRows.length,
+    wholeFile,
     proposal,
     mapping: mappingFromProposal(proposal),
   };

@@ -15,6 +15,8 @@ export const RULE_LABELS: Record<string, string> = {
   'hygiene.missing': 'Missing readings',
   'hygiene.part-leads-air': 'Part TC leads the air',
   'hygiene.gap': 'Gap in the record',
+  'hygiene.time-unit-inferred': 'Time unit not in the header',
+  'hygiene.short-log': 'Short log',
   'spec.heat-rate': 'Heat-up rate',
   'spec.cool-rate': 'Cool-down rate',
   'spec.hold-long': 'Hold ran long',

@@ -6,11 +6,12 @@ import { MAX_RUN_LOG_BYTES } from '../../../../shared/run-log/limits';
 import { inspectRunLogLocally, refusalOf, runLogKeys, uploadRunLog, type Refusal } from '../api/run-logs-api';
 import { RunLogParseError } from '../../../../shared/run-log/run-log-error';
 import { MappingStep, mappingProblems } from './mapping-step';
+import { uploadWarnings } from '../../../../shared/run-log/upload-warnings';
 
 type Stage =
   | { kind: 'pick' }
   | { kind: 'inspecting' }
-  | { kind: 'mapping'; inspection: RunLogInspection; mapping: RunLogMapping }
+  | { kind: 'mapping'; inspection: RunLogInspection; mapping: RunLogMapping; confirmed: boolean }
   | { kind: 'uploading'; sent: number }
   | { kind: 'analysing' };
 
@@ -33,7 +34,7 @@ export function UploadPanel({ studyId }: { studyId: string }) {
     setStage({ kind: 'inspecting' });
     try {
       const inspection = await inspectRunLogLocally(f);
-      setStage({ kind: 'mapping', inspection, mapping: inspection.mapping });
+      setStage({ kind: 'mapping', inspection, mapping: inspection.mapping, confirmed: false });
     } catch (e) {
       setStage({ kind: 'pick' });
       setProblem(
@@ -54,11 +55,12 @@ export function UploadPanel({ studyId }: { studyId: string }) {
       navigate(`/run-logs/${created.id}`);
     } catch (e) {
       const inspection = stage.kind === 'mapping' ? stage.inspection : null;
-      setStage(inspection ? { kind: 'mapping', inspection, mapping } : { kind: 'pick' });
+      setStage(inspection ? { kind: 'mapping', inspection, mapping, confirmed: true } : { kind: 'pick' });
       setProblem({ message: (e as Error).message, refusal: refusalOf(e) });
     }
   }
 
+  const warnings = stage.kind === 'mapping' ? uploadWarnings(stage.inspection, stage.mapping) : [];
   return (
     <section className="rounded border border-rule bg-paper-raised p-4" data-testid="upload-panel">
       <h2 className="text-sm font-semibold uppercase tracking-wide text-ink-soft">Upload a run log</h2>
@@ -80,11 +82,21 @@ export function UploadPanel({ studyId }: { studyId: string }) {
             {stage.inspection.firstLine > 1 ? `; lines 1–${stage.inspection.firstLine - 1} above the table are skipped` : ''}
             {stage.inspection.hasHeader ? '' : '; no header row, so columns are numbered'}.
           </p>
-          <MappingStep inspection={stage.inspection} mapping={stage.mapping} onChange={(mapping) => setStage({ ...stage, mapping })} />
+          <MappingStep inspection={stage.inspection} mapping={stage.mapping} onChange={(mapping) => setStage({ ...stage, mapping, confirmed: false })} />
+          {warnings.length > 0 && (
+            <div className="mt-3 rounded border border-saffron-soft bg-saffron-soft/40 p-3 text-sm" data-testid="upload-warnings">
+              <p className="font-medium">Check before uploading</p>
+              <ul className="mt-1 list-disc pl-5">{warnings.map((w) => <li key={w}>{w}</li>)}</ul>
+              <label className="mt-2 flex items-center gap-2">
+                <input type="checkbox" checked={stage.confirmed} onChange={(e) => setStage({ ...stage, confirmed: e.target.checked })} />
+                I have checked these and want to upload the log as mapped
+              </label>
+            </div>
+          )}
           <button
             type="button"
             className="mt-3 rounded bg-slate px-3 py-1.5 text-sm font-medium text-paper disabled:opacity-50"
-            disabled={mappingProblems(stage.mapping).length > 0}
+            disabled={mappingProblems(stage.mapping).length > 0 || (warnings.length > 0 && !stage.confirmed)}
             onClick={() => void send(stage.mapping)}
           >
             Upload and check
