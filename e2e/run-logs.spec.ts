@@ -113,10 +113,21 @@ test('upload a run log, map its columns, see the long hold flagged, open the rep
 
   // The lead decides; the decision is then final and on the printable record with the cautions.
   const lead = await signedIn(browser, 'amara.okafor');
+  // the record-to-be is a draft until decided
+  await lead.goto(`${runLogUrl}/record`);
+  await expect(lead.getByTestId('record-draft')).toContainText('No decision yet — draft');
+  await expect(lead.getByTestId('record-mapping')).toContainText('TC2 mid-plane');
+  await expect(lead.getByTestId('record-mapping')).toContainText('psi');
   await lead.goto(runLogUrl);
   await lead.getByLabel(/Use as is/).check();
   await lead.getByLabel(/^Rationale/).fill('Hold 2 ran 50 min long at 180 °C. Replay: cure and Tg at every TC at or above the baseline; no new exotherm. Travelling coupons to confirm Tg.');
-  await lead.getByRole('button', { name: 'Record the decision' }).click();
+  // an irreversible step asks first; going back records nothing
+  await lead.getByRole('button', { name: 'Record the decision…' }).click();
+  await expect(lead.getByTestId('review-confirm')).toContainText('cannot be changed');
+  await lead.getByRole('button', { name: 'Go back' }).click();
+  await expect(lead.getByTestId('review-confirm')).toHaveCount(0);
+  await lead.getByRole('button', { name: 'Record the decision…' }).click();
+  await lead.getByRole('button', { name: 'Yes, record it' }).click();
   await expect(lead.getByTestId('review-decision')).toContainText('Use as is');
   await expect(lead.getByTestId('review-decision')).toContainText('Amara Okafor');
   await expect(lead.getByTestId('review-form')).toHaveCount(0);
@@ -126,6 +137,7 @@ test('upload a run log, map its columns, see the long hold flagged, open the rep
 
   await lead.goto(`${runLogUrl}/record`);
   await expect(lead.getByTestId('record-decision')).toContainText('Use as is');
+  await expect(lead.getByTestId('record-draft')).toHaveCount(0);
   await expect(lead.getByTestId('record-spec')).toContainText('Hold ran long');
   await expect(lead.getByTestId('record-cautions')).toContainText('does not replace coupon tests');
   await expect(lead.getByTestId('record-cautions')).toContainText('review board');

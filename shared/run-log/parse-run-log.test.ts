@@ -161,7 +161,14 @@ describe('parseRunLog: refusing broken files with line, column and why', () => {
     const mapping = inspectRunLog(text).mapping;
     expect(mapping.columns[2]).toMatchObject({ role: 'part' });
     const e = refusal(text, mapping);
-    expect(e.message).toBe('line 4, column "TC1 (°C)": "OPEN" is not a number: a part column must hold numbers (or be empty where a reading is missing)');
+    expect(e.message).toBe('line 4, column "TC1 (°C)": "OPEN" is not a number: a part thermocouple column must hold numbers (or be empty where a reading is missing)');
+  });
+
+  it('names the column role with the right article', () => {
+    const text = 'Time (min),Air (°C),TC1 (°C)\n0,20,20\n1,n/a,21\n';
+    expect(refusal(text, inspectRunLog('Time (min),Air (°C),TC1 (°C)\n0,20,20\n1,22,21\n').mapping).reason).toBe(
+      '"n/a" is not a number: an air column must hold numbers (or be empty where a reading is missing)',
+    );
   });
 
   it('refuses a time stamp it cannot read', () => {

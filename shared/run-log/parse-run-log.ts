@@ -13,6 +13,7 @@ import { RunLogParseError } from './run-log-error';
 import { MIDNIGHT_ROLLOVER_S, timestampKind, timestampSeconds } from './timestamps';
 import { pressureToPa, temperatureToK, timeToS, vacuumDepthPa } from './units';
 import type { RunLog, RunLogChannel } from './types';
+import { ROLE_NOUN, withArticle } from './words';
 
 // Reading a run-log CSV: papaparse splits the text (never a hand-written splitter); this module reads the
 // cells. `inspectRunLog` looks at the head and tail of the file to propose a mapping; `parseRunLog` reads
@@ -325,7 +326,7 @@ export function parseRunLog(input: string, mappingInput: unknown, options: Parse
           continue;
         }
         if (Number.isNaN(v)) {
-          return fail(`${JSON.stringify(row[c.column].trim())} is not a number: a ${c.role} column must hold numbers (or be empty where a reading is missing)`, headers[c.column]);
+          return fail(`${JSON.stringify(row[c.column].trim())} is not a number: ${withArticle(ROLE_NOUN[c.role])} column must hold numbers (or be empty where a reading is missing)`, headers[c.column]);
         }
         series[k].push(toSI(c, v));
       }

@@ -14,6 +14,8 @@ export function ReviewSection({ runLog }: { runLog: RunLogDetail }) {
   const decide = useDecideReview(String(runLog.id));
   const [decision, setDecision] = useState<ReviewDecision | null>(null);
   const [rationale, setRationale] = useState('');
+  // a decision cannot be undone: the first press asks, the second records
+  const [confirming, setConfirming] = useState(false);
 
   if (runLog.review) {
     const r = runLog.review;
@@ -42,14 +44,21 @@ export function ReviewSection({ runLog }: { runLog: RunLogDetail }) {
       data-testid="review-form"
       onSubmit={(e) => {
         e.preventDefault();
-        if (decision) decide.mutate({ decision, rationale });
+        if (decision) setConfirming(true);
       }}
     >
       <fieldset className="flex flex-wrap gap-4">
         <legend className="sr-only">Decision</legend>
         {DECISIONS.map((d) => (
           <label key={d.value} className="flex items-start gap-1.5 text-sm">
-            <input type="radio" name="decision" value={d.value} checked={decision === d.value} onChange={() => setDecision(d.value)} />
+            <input
+              type="radio"
+              name="decision"
+              value={d.value}
+              checked={decision === d.value}
+              disabled={confirming}
+              onChange={() => setDecision(d.value)}
+            />
             <span>
               <span className="font-medium">{d.label}</span>
               <span className="block text-xs text-ink-faint">{d.hint}</span>
@@ -59,16 +68,42 @@ export function ReviewSection({ runLog }: { runLog: RunLogDetail }) {
       </fieldset>
       <label className="mt-3 block text-sm">
         Rationale <span className="text-ink-faint">(at least 20 characters: findings weighed, replay results, coupons or tests asked for)</span>
-        <textarea className="mt-1 block h-28 w-full rounded border border-rule bg-paper p-2" value={rationale} onChange={(e) => setRationale(e.target.value)} />
+        <textarea
+          className="mt-1 block h-28 w-full rounded border border-rule bg-paper p-2"
+          value={rationale}
+          readOnly={confirming}
+          onChange={(e) => setRationale(e.target.value)}
+        />
       </label>
       {error && <p role="alert" className="mt-2 text-sm text-fault">{error}</p>}
-      <button
-        type="submit"
-        className="mt-2 rounded bg-slate px-3 py-1.5 text-sm font-medium text-paper disabled:opacity-50"
-        disabled={!decision || rationale.trim().length < 20 || decide.isPending}
-      >
-        Record the decision
-      </button>
+      {confirming && decision ? (
+        <div className="mt-2 rounded border border-fault-soft bg-fault-soft/30 p-3 text-sm" data-testid="review-confirm">
+          <p className="font-medium">
+            Record “{DECISIONS.find((d) => d.value === decision)!.label}” on this run? It cannot be changed or withdrawn afterwards.
+          </p>
+          <div className="mt-2 flex gap-2">
+            <button
+              type="button"
+              className="rounded bg-fault px-3 py-1.5 font-medium text-paper disabled:opacity-50"
+              disabled={decide.isPending}
+              onClick={() => decide.mutate({ decision, rationale })}
+            >
+              Yes, record it
+            </button>
+            <button type="button" className="rounded border border-rule px-3 py-1.5" disabled={decide.isPending} onClick={() => setConfirming(false)}>
+              Go back
+            </button>
+          </div>
+        </div>
+      ) : (
+        <button
+          type="submit"
+          className="mt-2 rounded bg-slate px-3 py-1.5 text-sm font-medium text-paper disabled:opacity-50"
+          disabled={!decision || rationale.trim().length < 20}
+        >
+          Record the decision…
+        </button>
+      )}
       <p className="mt-1 text-xs text-ink-faint">Once recorded, the decision cannot be changed.</p>
     </form>
   );

@@ -1,6 +1,7 @@
 import { Link, useParams } from 'react-router-dom';
 import { useRunLog } from '../api/run-logs-api';
 import { FindingsTable } from './findings-table';
+import { MappingTable } from './mapping-table';
 import { FlaggedChannels } from './flagged-channels';
 import { GaugesChart, ReplayChart } from './replay-chart';
 import { SpecSummary } from './spec-summary';
@@ -24,6 +25,11 @@ export function ReviewRecordPage() {
         <button type="button" className="text-slate underline" onClick={() => window.print()}>Print</button>
       </p>
       <h1 className="mt-2 text-xl font-semibold">Run review record</h1>
+      {!r.review && (
+        <p className="mt-2 rounded border-2 border-fault px-3 py-2 text-lg font-semibold text-fault" data-testid="record-draft">
+          No decision yet — draft. This record is not a disposition of the part.
+        </p>
+      )}
       <dl className="mt-3 grid grid-cols-[12rem_1fr] gap-x-3 gap-y-1 text-sm">
         <dt className="text-ink-soft">Part</dt><dd>{r.part ? `${r.part.partNumber} · ${r.part.name}` : '—'}</dd>
         <dt className="text-ink-soft">Study</dt><dd>{r.study?.title ?? '—'}, revision {rec.checkedAgainst.number}</dd>
@@ -31,6 +37,8 @@ export function ReviewRecordPage() {
         <dt className="text-ink-soft">SHA-256</dt><dd className="num break-all text-xs">{r.checksumSha256}</dd>
         <dt className="text-ink-soft">Uploaded</dt><dd>{r.uploadedBy?.name ?? 'unknown'}, {fmtTime(r.uploadedAt)}</dd>
       </dl>
+      <h2 className="mt-5 font-semibold">Column mapping</h2>
+      <MappingTable mapping={rec.mapping} />
       <h2 className="mt-5 font-semibold">Data hygiene</h2>
       <FindingsTable findings={rec.hygiene.findings} empty="No hygiene findings." testId="record-hygiene" />
       <FlaggedChannels hygiene={rec.hygiene} />
@@ -48,7 +56,7 @@ export function ReviewRecordPage() {
           <p className="mt-1 whitespace-pre-wrap">{r.review.rationale}</p>
         </div>
       ) : (
-        <p className="mt-1 text-sm">No decision recorded yet.</p>
+        <p className="mt-1 text-sm font-semibold text-fault">No decision yet — draft.</p>
       )}
       <h2 className="mt-5 font-semibold">Cautions</h2>
       <ul className="mt-1 list-disc pl-5 text-sm" data-testid="record-cautions">{CAUTIONS.map((c) => <li key={c}>{c}</li>)}</ul>
