@@ -76,7 +76,7 @@ test('a fork compared with the baseline shows deltas, the flipped limit, a CSV w
   await expect(page.getByLabel('B (candidate)').locator('option', { hasText: fork.title })).toHaveCount(2);
 
   // The parameter diff names the one edit, in words with units.
-  await expect(page.getByTestId('param-diff')).toContainText(/Cycle segment 1 \(ramp\): rate [\d.]+ °C\/min → 5 °C\/min/);
+  await expect(page.getByTestId('param-diff')).toContainText(/Ramp 1: rate [\d.]+ °C\/min → 5 °C\/min/);
   // The heat-up limit flips from pass to fail; the headline counts it.
   const heatUp = page.locator('[data-limit="maxHeatRateCPerMin"]');
   await expect(heatUp).toHaveAttribute('data-flip', 'now-fails');
@@ -137,7 +137,7 @@ test('a fork compared with the baseline shows deltas, the flipped limit, a CSV w
   await expect(page.getByTestId('report-title')).toHaveText(`${fork.title} · r2`);
   await expect(page.getByTestId('job-summary')).toContainText('process limits fail');
   await expect(page.locator('[data-verdict="fail"]')).toContainText('Heat-up rate');
-  await expect(page.getByTestId('report-cycle')).toContainText('1. ramp at 5 °C/min');
+  await expect(page.getByTestId('report-cycle')).toContainText('Ramp 1: 5 °C/min');
   await expect(page.getByTestId('report-assumptions')).toContainText('one dimension');
   await expect(page.getByTestId('report-cautions')).toContainText('never replace');
   await expect(page.getByTestId('report-cautions')).toContainText('Exotherm risk');

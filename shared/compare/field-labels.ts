@@ -88,9 +88,10 @@ const SEGMENT: Record<string, FieldLabel> = {
   rateCPerMin: L('rate', '°C/min'),
   targetC: L('target', '°C'),
   pressureBar: L('pressure', 'bar'),
-  holdMin: L('hold time', 'min'),
-  start: L('hold clock start'),
-  bandC: L('hold band ±', '°C'),
+  // as the segment table's columns name them ("Dwell 1 length", "Dwell 1 band")
+  holdMin: L('length', 'min'),
+  start: L('start'),
+  bandC: L('band ±', '°C'),
 };
 
 const STUDY: Record<string, FieldLabel> = {
@@ -110,6 +111,13 @@ const STUDY: Record<string, FieldLabel> = {
   'limits.maxSpringInDeg': L('maximum spring-in', '°'),
   'limits.maxCycleMin': L('maximum cycle time', 'min'),
   'cycle.startC': L('start temperature', '°C'),
+};
+
+/** The kinetics forms by their published names (the card stores a code key). */
+export const KINETICS_NAMES: Record<'nth-order' | 'kamal-sourour' | 'lee-loos-springer', string> = {
+  'nth-order': 'nth order',
+  'kamal-sourour': 'Kamal–Sourour',
+  'lee-loos-springer': 'Lee–Loos–Springer',
 };
 
 export const FIELD_LABELS = { resin: RESIN, fibre: FIBRE, tool: TOOL, segment: SEGMENT, study: STUDY } as const;

@@ -26,7 +26,7 @@ describe('paramDiff', () => {
     expect(paramDiff(referenceStudy(), referenceStudy())).toEqual([]);
   });
 
-  it('names a lengthened dwell by segment number, field, both values, the difference and the unit', () => {
+  it('names a lengthened dwell by its name on the cycle editor, field, both values, the difference and the unit', () => {
     const b = edit((p) => {
       const hold = segments(p)[1];
       if (hold.kind === 'hold') hold.holdMin = 120;
@@ -34,7 +34,7 @@ describe('paramDiff', () => {
     const changes = paramDiff(referenceStudy(), b);
     expect(changes).toHaveLength(1);
     expect(changes[0]).toMatchObject({ area: 'cycle', kind: 'changed', path: 'cycle.segments.1.holdMin' });
-    expect(changes[0].text).toBe('Cycle segment 2 (hold): hold time 90 min → 120 min (+30 min)');
+    expect(changes[0].text).toBe('Dwell 1: length 90 min → 120 min (+30 min)');
   });
 
   it('names a slower ramp with a negative difference in °C/min', () => {
@@ -42,16 +42,16 @@ describe('paramDiff', () => {
       const ramp = segments(p)[0];
       if (ramp.kind === 'ramp') ramp.rateCPerMin = 1.5;
     });
-    expect(texts(paramDiff(referenceStudy(), b))).toEqual(['Cycle segment 1 (ramp): rate 2 °C/min → 1.5 °C/min (−0.5 °C/min)']);
+    expect(texts(paramDiff(referenceStudy(), b))).toEqual(['Ramp 1: rate 2 °C/min → 1.5 °C/min (−0.5 °C/min)']);
   });
 
-  it('names a hold whose clock now starts at once instead of waiting for the lagging part point', () => {
+  it('names a dwell that now starts on the clock instead of waiting for the coldest point to be in band', () => {
     const b = edit((p) => {
       const hold = segments(p)[3];
       if (hold.kind === 'hold') hold.start = 'clock';
     });
     expect(texts(paramDiff(referenceStudy(), b))).toEqual([
-      'Cycle segment 4 (hold): hold clock starts when the lagging part point is in band → at once',
+      'Dwell 2: starts when the coldest point is in band → starts on the clock',
     ]);
   });
 
@@ -63,7 +63,7 @@ describe('paramDiff', () => {
     const changes = paramDiff(referenceStudy(), b);
     expect(changes).toHaveLength(1);
     expect(changes[0].kind).toBe('added');
-    expect(changes[0].text).toMatch(/^Cycle segment [23] added: hold 15 min, 7 bar, clock starts at once$/);
+    expect(changes[0].text).toMatch(/^Dwell [12] added: 15 min, 7 bar, starts on the clock$/);
   });
 
   it('reports a removed segment with what it was', () => {
@@ -73,9 +73,9 @@ describe('paramDiff', () => {
     });
     const changes = paramDiff(referenceStudy(), b);
     expect(changes.map((c) => c.kind).sort()).toEqual(['removed', 'removed']);
-    expect(texts(changes)).toContain('Cycle segment 1 removed (was ramp at 2 °C/min to 120 °C, 7 bar)');
+    expect(texts(changes)).toContain('Ramp 1 removed (was 2 °C/min to 120 °C, 7 bar)');
     expect(texts(changes)).toContain(
-      'Cycle segment 2 removed (was hold 90 min, 7 bar, clock starts when the lagging part point is within ±5 °C)',
+      'Dwell 1 removed (was 90 min, 7 bar, starts when the coldest point is in band (±5 °C))',
     );
   });
 
@@ -84,7 +84,7 @@ describe('paramDiff', () => {
       segments(p)[1] = { kind: 'ramp', rateCPerMin: 1, targetC: 130, pressureBar: 7 };
     });
     expect(texts(paramDiff(referenceStudy(), b))).toEqual([
-      'Cycle segment 2 replaced: hold 90 min, 7 bar, clock starts when the lagging part point is within ±5 °C → ramp at 1 °C/min to 130 °C, 7 bar',
+      'Dwell 1 replaced by Ramp 2: 90 min, 7 bar, starts when the coldest point is in band (±5 °C) → 1 °C/min to 130 °C, 7 bar',
     ]);
   });
 
@@ -102,11 +102,11 @@ describe('paramDiff', () => {
       };
     });
     expect(texts(paramDiff(referenceStudy(), b))).toEqual([
-      'Cycle segment 1 removed (was ramp at 2 °C/min to 120 °C, 7 bar)',
-      'Cycle segment 2 removed (was hold 90 min, 7 bar, clock starts when the lagging part point is within ±5 °C)',
-      'Cycle segment 1 (ramp, segment 3 before): rate 1.5 °C/min → 5 °C/min (+3.5 °C/min)',
-      'Cycle segment 2 (hold, segment 4 before): hold clock starts when the lagging part point is in band → at once',
-      'Cycle segment 3 (cool, segment 5 before): rate 2 °C/min → 5 °C/min (+3 °C/min)',
+      'Ramp 1 removed (was 2 °C/min to 120 °C, 7 bar)',
+      'Dwell 1 removed (was 90 min, 7 bar, starts when the coldest point is in band (±5 °C))',
+      'Ramp 1 (Ramp 2 before): rate 1.5 °C/min → 5 °C/min (+3.5 °C/min)',
+      'Dwell 1 (Dwell 2 before): starts when the coldest point is in band → starts on the clock',
+      'Cool 1: rate 2 °C/min → 5 °C/min (+3 °C/min)',
     ]);
   });
 
@@ -119,8 +119,8 @@ describe('paramDiff', () => {
       }
     });
     expect(texts(paramDiff(referenceStudy(), b))).toEqual([
-      'Cycle segment 5 (cool): target 60 °C → 50 °C (−10 °C)',
-      'Cycle segment 5 (cool): pressure 7 bar → 6 bar (−1 bar)',
+      'Cool 1: target 60 °C → 50 °C (−10 °C)',
+      'Cool 1: pressure 7 bar → 6 bar (−1 bar)',
     ]);
   });
 

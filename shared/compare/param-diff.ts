@@ -1,4 +1,5 @@
-import type { CycleSegment, StudyParams } from '../schemas/study';
+import type { StudyParams } from '../schemas/study';
+import { describeSegmentSettings, HOLD_START_WORDS, segmentNames } from './segment-names';
 import { alignLists, deepEqual } from './align';
 import { FIELD_LABELS, fieldLabel, formatDelta, formatQuantity, type FieldLabel } from './field-labels';
 
@@ -190,21 +191,6 @@ function diffLayup(out: ParamChange[], a: Ply[], b: Ply[]) {
 
 // --- cycle -------------------------------------------------------------------------------------------------
 
-/** "ramp at 2 °C/min to 120 °C, 7 bar" */
-export function describeSegment(s: CycleSegment): string {
-  if (s.kind === 'ramp') return `ramp at ${formatQuantity(s.rateCPerMin, '°C/min')} to ${formatQuantity(s.targetC, '°C')}, ${formatQuantity(s.pressureBar, 'bar')}`;
-  if (s.kind === 'cool') return `cool at ${formatQuantity(s.rateCPerMin, '°C/min')} to ${formatQuantity(s.targetC, '°C')}, ${formatQuantity(s.pressureBar, 'bar')}`;
-  const clock =
-    s.start === 'lagging-part'
-      ? `clock starts when the lagging part point is within ±${formatQuantity(s.bandC, '°C')}`
-      : 'clock starts at once';
-  return `hold ${formatQuantity(s.holdMin, 'min')}, ${formatQuantity(s.pressureBar, 'bar')}, ${clock}`;
-}
-
-function describeHoldStart(start: 'clock' | 'lagging-part'): string {
-  return start === 'lagging-part' ? 'when the lagging part point is in band' : 'at once';
-}
-
 function describeCycle(c: StudyParams['cycle']): string {
   if (c.kind === 'segments') return `a schedule of ${c.segments.length} segments from ${formatQuantity(c.startC, '°C')}`;
   const last = c.points[c.points.length - 1];
@@ -222,33 +208,36 @@ function diffCycle(out: ParamChange[], a: StudyParams['cycle'], b: StudyParams['
     return;
   }
   diffStudyField(out, 'cycle', 'cycle.startC', a.startC, b.startC);
+  // Segments are named as on the cycle editor: A's names for what went, B's for what is there now.
+  const namesA = segmentNames(a.segments);
+  const namesB = segmentNames(b.segments);
   for (const pair of alignLists(a.segments, b.segments)) {
     if (pair.kind === 'same') continue;
     if (pair.kind === 'added') {
-      out.push({ area: 'cycle', kind: 'added', path: `cycle.segments.${pair.indexB}`, text: `Cycle segment ${pair.indexB + 1} added: ${describeSegment(pair.b)}` });
+      out.push({ area: 'cycle', kind: 'added', path: `cycle.segments.${pair.indexB}`, text: `${namesB[pair.indexB]} added: ${describeSegmentSettings(pair.b)}` });
       continue;
     }
     if (pair.kind === 'removed') {
-      out.push({ area: 'cycle', kind: 'removed', path: `cycle.segments.${pair.indexA}`, text: `Cycle segment ${pair.indexA + 1} removed (was ${describeSegment(pair.a)})` });
+      out.push({ area: 'cycle', kind: 'removed', path: `cycle.segments.${pair.indexA}`, text: `${namesA[pair.indexA]} removed (was ${describeSegmentSettings(pair.a)})` });
       continue;
     }
-    const moved = pair.indexA === pair.indexB ? '' : `segment ${pair.indexA + 1} before`;
+    const nameA = namesA[pair.indexA];
+    const nameB = namesB[pair.indexB];
     const path = `cycle.segments.${pair.indexB}`;
     if (pair.a.kind !== pair.b.kind) {
-      const text = `Cycle segment ${pair.indexB + 1}${moved ? ` (${moved})` : ''} replaced: ${describeSegment(pair.a)} → ${describeSegment(pair.b)}`;
+      const text = `${nameA} replaced by ${nameB}: ${describeSegmentSettings(pair.a)} → ${describeSegmentSettings(pair.b)}`;
       out.push({ area: 'cycle', kind: 'changed', path, text });
       continue;
     }
+    const subject = `${nameB}${nameA === nameB ? '' : ` (${nameA} before)`}: `;
     const before = pair.a as Json;
     const after = pair.b as Json;
     for (const key of Object.keys(after)) {
       if (key === 'kind' || deepEqual(before[key], after[key])) continue;
-      const label = fieldLabel(FIELD_LABELS.segment, key);
-      const subject = `Cycle segment ${pair.indexB + 1} (${pair.b.kind}${moved ? `, ${moved}` : ''}): `;
       const text =
         key === 'start'
-          ? `${subject}hold clock starts ${describeHoldStart(before[key] as 'clock')} → ${describeHoldStart(after[key] as 'clock')}`
-          : changedText(subject, label, before[key], after[key]);
+          ? `${subject}starts ${HOLD_START_WORDS[before[key] as 'clock']} → starts ${HOLD_START_WORDS[after[key] as 'clock']}`
+          : changedText(subject, fieldLabel(FIELD_LABELS.segment, key), before[key], after[key]);
       out.push({ area: 'cycle', kind: 'changed', path: `${path}.${key}`, text });
     }
   }

@@ -89,6 +89,29 @@ describe('resultsToCsv', () => {
     expect(header.get('solver note')).toBe('hold 2 clock started late: the lagging point entered the band after 35 min');
   });
 
+  it('lists the cycle in the header block with the segment names of the cycle editor', () => {
+    const params = structuredClone(referenceStudy());
+    params.cycle = {
+      kind: 'segments',
+      startC: 20,
+      segments: [
+        { kind: 'ramp', rateCPerMin: 2, targetC: 120, pressureBar: 7 },
+        { kind: 'hold', holdMin: 60, pressureBar: 7, start: 'lagging-part', bandC: 5 },
+        { kind: 'ramp', rateCPerMin: 1.5, targetC: 180, pressureBar: 7 },
+        { kind: 'hold', holdMin: 120, pressureBar: 7, start: 'clock', bandC: 5 },
+        { kind: 'cool', rateCPerMin: 3, targetC: 60, pressureBar: 7 },
+      ],
+    };
+    const rows = parse(resultsToCsv(result(), { ...meta, params }));
+    const header = new Map(rows.slice(1, rows.findIndex((r) => r.length === 1 && r[0] === '')).map((r) => [r[0], r[1]]));
+    expect(header.get('cycle start')).toBe('20 °C');
+    expect(header.get('Ramp 1')).toBe('2 °C/min to 120 °C, 7 bar');
+    expect(header.get('Dwell 1')).toBe('60 min, 7 bar, starts when the coldest point is in band (±5 °C)');
+    expect(header.get('Ramp 2')).toBe('1.5 °C/min to 180 °C, 7 bar');
+    expect(header.get('Dwell 2')).toBe('120 min, 7 bar, starts on the clock');
+    expect(header.get('Cool 1')).toBe('3 °C/min to 60 °C, 7 bar');
+  });
+
   it('writes every history step in engineering units, the unit in each column header', () => {
     const r = result();
     const rows = parse(resultsToCsv(r, meta));

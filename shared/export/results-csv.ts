@@ -2,6 +2,8 @@ import Papa from 'papaparse';
 import type { StudyParams } from '../schemas/study';
 import type { SimulationResult } from '../solver/simulate';
 import { kToC, paToBar, paToMpa, sToMin, mToMm } from '../units';
+import { formatQuantity } from '../compare/field-labels';
+import { describeSegmentSettings, segmentNames } from '../compare/segment-names';
 
 // Results as one CSV file for people who will not open the tool: a header block (what was run, with which
 // material cards and model version, in which units), then the time histories, the final ply stresses and the
@@ -54,6 +56,13 @@ function describeCard(card: { name: string; provenance: { source: string } }): s
   return `${card.name} (source: ${card.provenance.source})`;
 }
 
+/** The cycle in the header block, a row per segment named as on the cycle editor ("Ramp 1", "Dwell 1"). */
+function cycleRows(cycle: StudyParams['cycle']): string[][] {
+  if (cycle.kind === 'record') return [['cycle', `measured record of ${cycle.points.length} points`]];
+  const names = segmentNames(cycle.segments);
+  return [['cycle start', formatQuantity(cycle.startC, '°C')], ...cycle.segments.map((s, i) => [names[i], describeSegmentSettings(s)])];
+}
+
 export function resultsToCsv(result: CsvResult, meta: CsvMeta): string {
   const { history, plyStresses, summary } = result;
   const rowsOfHistory = history.timeS.length;
@@ -70,6 +79,7 @@ export function resultsToCsv(result: CsvResult, meta: CsvMeta): string {
     ['fibre card', describeCard(meta.params.fibre)],
     ['fibre volume fraction', meta.params.fibreVolumeFraction],
     ['plies', meta.params.layup.plies.length],
+    ...cycleRows(meta.params.cycle),
     ['model version', result.modelVersion],
     ['exported at', meta.exportedAt.toISOString()],
     ['units', 'time in min; temperatures in °C; pressure in bar; stresses and modulus in MPa; z in mm from the tool side; degree of cure as a fraction 0..1'],

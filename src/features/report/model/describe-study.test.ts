@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { referenceStudy } from '../../../../shared/solver/demo-cards';
-import { describeCycleSteps, describeLayup, processRows } from './describe-study';
+import { describeCycleSteps, describeLayup, processRows, resinRows } from './describe-study';
 
 describe('report inputs in words', () => {
   it('summarises the reference layup: 24 plies × 0.19 mm = 4.56 mm (hand arithmetic)', () => {
@@ -10,15 +10,21 @@ describe('report inputs in words', () => {
     expect(sequence.split(' / ')).toHaveLength(24);
   });
 
-  it('lists the cycle as numbered steps with units', () => {
+  it('lists the cycle with the segment names of the cycle editor, with units', () => {
     expect(describeCycleSteps(referenceStudy())).toEqual([
       'Start at 20 °C',
-      '1. ramp at 2 °C/min to 120 °C, 7 bar',
-      '2. hold 90 min, 7 bar, clock starts when the lagging part point is within ±5 °C',
-      '3. ramp at 1.5 °C/min to 180 °C, 7 bar',
-      '4. hold 120 min, 7 bar, clock starts when the lagging part point is within ±5 °C',
-      '5. cool at 2 °C/min to 60 °C, 7 bar',
+      'Ramp 1: 2 °C/min to 120 °C, 7 bar',
+      'Dwell 1: 90 min, 7 bar, starts when the coldest point is in band (±5 °C)',
+      'Ramp 2: 1.5 °C/min to 180 °C, 7 bar',
+      'Dwell 2: 120 min, 7 bar, starts when the coldest point is in band (±5 °C)',
+      'Cool 1: 2 °C/min to 60 °C, 7 bar',
     ]);
+  });
+
+  it('names the kinetics form by its published name, not the card’s code key', () => {
+    const kinetics = Object.fromEntries(resinRows(referenceStudy()))['Kinetics'];
+    expect(kinetics).toMatch(/^(nth order|Kamal–Sourour|Lee–Loos–Springer): /);
+    expect(kinetics).not.toMatch(/kamal-sourour|nth-order|lee-loos-springer/);
   });
 
   it('names the tool and the constraint', () => {

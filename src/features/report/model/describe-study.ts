@@ -1,4 +1,5 @@
-import { describeSegment } from '../../../../shared/compare/param-diff';
+import { describeSegments } from '../../../../shared/compare/segment-names';
+import { KINETICS_NAMES } from '../../../../shared/compare/field-labels';
 import { formatQuantity } from '../../../../shared/compare/field-labels';
 import type { StudyParams } from '../../../../shared/schemas/study';
 
@@ -26,7 +27,7 @@ export function describeCycleSteps(params: StudyParams): string[] {
     const last = c.points[c.points.length - 1];
     return [`Measured record of ${c.points.length} points over ${q(last.timeMin - c.points[0].timeMin, 'min')}, starting at ${q(c.points[0].airC, '°C')}`];
   }
-  return [`Start at ${q(c.startC, '°C')}`, ...c.segments.map((s, i) => `${i + 1}. ${describeSegment(s)}`)];
+  return [`Start at ${q(c.startC, '°C')}`, ...describeSegments(c.segments)];
 }
 
 export function resinRows(params: StudyParams): Row[] {
@@ -34,10 +35,10 @@ export function resinRows(params: StudyParams): Row[] {
   const k = r.kinetics;
   const kinetics =
     k.form === 'nth-order'
-      ? `nth order: A ${q(k.aPerS, '1/s')}, E ${q(k.eJPerMol, 'J/mol')}, n ${q(k.n, '')}`
+      ? `${KINETICS_NAMES['nth-order']}: A ${q(k.aPerS, '1/s')}, E ${q(k.eJPerMol, 'J/mol')}, n ${q(k.n, '')}`
       : k.form === 'kamal-sourour'
-        ? `Kamal–Sourour: A1 ${q(k.a1PerS, '1/s')}, E1 ${q(k.e1JPerMol, 'J/mol')}, A2 ${q(k.a2PerS, '1/s')}, E2 ${q(k.e2JPerMol, 'J/mol')}, m ${q(k.m, '')}, n ${q(k.n, '')}`
-        : `Lee–Loos–Springer: A1 ${q(k.a1PerMin, '1/min')}, A2 ${q(k.a2PerMin, '1/min')}, A3 ${q(k.a3PerMin, '1/min')}, E1 ${q(k.e1JPerMol, 'J/mol')}, E2 ${q(k.e2JPerMol, 'J/mol')}, E3 ${q(k.e3JPerMol, 'J/mol')}, B ${q(k.b, '')}`;
+        ? `${KINETICS_NAMES['kamal-sourour']}: A1 ${q(k.a1PerS, '1/s')}, E1 ${q(k.e1JPerMol, 'J/mol')}, A2 ${q(k.a2PerS, '1/s')}, E2 ${q(k.e2JPerMol, 'J/mol')}, m ${q(k.m, '')}, n ${q(k.n, '')}`
+        : `${KINETICS_NAMES['lee-loos-springer']}: A1 ${q(k.a1PerMin, '1/min')}, A2 ${q(k.a2PerMin, '1/min')}, A3 ${q(k.a3PerMin, '1/min')}, E1 ${q(k.e1JPerMol, 'J/mol')}, E2 ${q(k.e2JPerMol, 'J/mol')}, E3 ${q(k.e3JPerMol, 'J/mol')}, B ${q(k.b, '')}`;
   return [
     ['Resin card', r.name],
     ['Source', r.provenance.source + (r.provenance.note ? ` (${r.provenance.note})` : '')],

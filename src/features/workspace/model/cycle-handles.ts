@@ -4,7 +4,8 @@
  * of many small moves lands exactly where one big move would.
  */
 import type { Draft } from 'immer';
-import type { CycleSegment, StudyParams } from '../../../../shared/schemas/study';
+import type { StudyParams } from '../../../../shared/schemas/study';
+import { segmentNames } from '../../../../shared/compare/segment-names';
 import { cycleSpans, dragHoldLength, dragRampRate, dragRampTarget, dwellTemperatureOwner, roundTempC, stepRampRate } from './cycle-geometry';
 
 export type CycleHandle =
@@ -21,17 +22,6 @@ export type HandleDelta = { minutes: number; celsius: number; axis: 'x' | 'y'; r
 export type HandleEdit =
   | { ok: true; label: string; recipe: (draft: Draft<StudyParams>) => void }
   | { ok: false; reason: string };
-
-const kindNames: Record<CycleSegment['kind'], string> = { ramp: 'Ramp', hold: 'Dwell', cool: 'Cool' };
-
-/** "Ramp 1", "Dwell 1", "Ramp 2", "Dwell 2", "Cool 1": numbered per kind, as engineers talk about them. */
-export function segmentNames(segments: readonly CycleSegment[]): string[] {
-  const counts: Record<string, number> = {};
-  return segments.map((s) => {
-    counts[s.kind] = (counts[s.kind] ?? 0) + 1;
-    return `${kindNames[s.kind]} ${counts[s.kind]}`;
-  });
-}
 
 export function handleId(h: CycleHandle): string {
   return `${h.kind}-${h.index}`;

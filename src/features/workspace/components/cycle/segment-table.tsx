@@ -3,15 +3,15 @@ import type { Draft } from 'immer';
 import { NumberField } from '../../../../components/ui/number-field';
 import { SelectField } from '../../../../components/ui/select-field';
 import { cycleSpans, newSegment, splitSegment } from '../../model/cycle-geometry';
-import { segmentNames } from '../../model/cycle-handles';
+import { HOLD_START_WORDS, segmentNames } from '../../../../../shared/compare/segment-names';
 import { issueAt } from '../../model/study-validation';
 import { useStudyEditor } from '../../stores/study-editor-store';
 
 type Edit = (label: string, recipe: (d: Draft<StudyParams>) => void, key?: string) => void;
 
 const holdStarts = [
-  { value: 'clock', label: 'on the clock' },
-  { value: 'lagging-part', label: 'when the coldest point is in band' },
+  { value: 'clock', label: HOLD_START_WORDS.clock },
+  { value: 'lagging-part', label: HOLD_START_WORDS['lagging-part'] },
 ] as const;
 
 const addChoices = [

@@ -2,6 +2,7 @@ import { Panel } from '../../../../components/ui/panel';
 import { SelectField } from '../../../../components/ui/select-field';
 import { demoCarbonFibre, demoResin180, leeLoosSpringerResin } from '../../../../../shared/solver/demo-cards';
 import type { ResinCard } from '../../../../../shared/schemas/study';
+import { KINETICS_NAMES } from '../../../../../shared/compare/field-labels';
 import { useIssueCount } from '../../hooks/use-study-field';
 import { useStudyEditor } from '../../stores/study-editor-store';
 import { StudyFields, type FieldSpec } from './study-fields';
@@ -93,7 +94,7 @@ export function MaterialPanel() {
           <p className="text-[11px] leading-snug text-ink-faint">Source: {resin.provenance.source}</p>
         </div>
         <h3 className="mb-1 text-xs text-ink-soft">
-          Kinetics, <span className="italic">{resin.kinetics.form}</span>
+          Kinetics, {KINETICS_NAMES[resin.kinetics.form]}
         </h3>
         <StudyFields fields={kineticsFields[resin.kinetics.form]} />
         <h3 className="mb-1 mt-3 text-xs text-ink-soft">Thermal and mechanical</h3>
