@@ -1,6 +1,9 @@
 /** Ply stacks: presets, mirroring, reordering. Ply 1 is the tool-side ply. */
 export type Ply = { angleDeg: number; thicknessMm: number };
 
+/** The study schema's ply limit (shared/schemas/study.ts, layup.plies max), for disabling actions before they fail. */
+export const MAX_PLIES = 200;
+
 export type LayupPreset = 'quasi-isotropic' | 'cross-ply' | 'unsymmetric';
 
 export const presetLabels: Record<LayupPreset, string> = {
@@ -32,6 +35,16 @@ export function presetPlies(preset: LayupPreset, wanted: number, thicknessMm: nu
 /** The stack followed by its mirror image: symmetric about the new mid-plane. */
 export function mirrored(plies: readonly Ply[]): Ply[] {
   return [...plies.map((p) => ({ ...p })), ...plies.slice().reverse().map((p) => ({ ...p }))];
+}
+
+/**
+ * The tool-side half kept and mirrored onto the bag side: the same ply count, symmetric about its mid-plane.
+ * With an odd count the middle ply stays and is its own mirror.
+ */
+export function mirroredToolSideHalf(plies: readonly Ply[]): Ply[] {
+  const keep = plies.slice(0, Math.ceil(plies.length / 2)).map((p) => ({ ...p }));
+  const mirror = plies.slice(0, Math.floor(plies.length / 2)).reverse().map((p) => ({ ...p }));
+  return [...keep, ...mirror];
 }
 
 export function isSymmetric(plies: readonly Ply[]): boolean {

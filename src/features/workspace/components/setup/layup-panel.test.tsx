@@ -30,7 +30,7 @@ describe('layup panel', () => {
     const user = userEvent.setup();
     render(<LayupPanel />);
     expect(screen.getByTestId('layup-symmetry').textContent).toMatch(/unsymmetric/);
-    await user.click(screen.getByRole('button', { name: /Mirror/ }));
+    await user.click(screen.getByRole('button', { name: 'Mirror → 6 plies' }));
     expect(angles()).toEqual([0, 45, 90, 90, 45, 0]);
     expect(screen.getByTestId('layup-symmetry').textContent).toBe('symmetric');
 
@@ -49,5 +49,29 @@ describe('layup panel', () => {
     await user.clear(angle);
     await user.type(angle, '120');
     expect(screen.getByRole('alert').textContent).toMatch(/^120 ° is out of range: allowed ≥ -90 ° and ≤ 90 °$/);
+  });
+
+  it('mirrors the tool-side half onto the bag side, keeping the ply count', async () => {
+    const user = userEvent.setup();
+    studyEditorStore.getState().edit('four plies', (d) => {
+      d.layup.plies = [0, 45, -45, 30].map((angleDeg) => ({ angleDeg, thicknessMm: 0.2 }));
+    });
+    render(<LayupPanel />);
+    // the whole-stack mirror says what it makes
+    expect(screen.getByRole('button', { name: 'Mirror → 8 plies' })).toBeTruthy();
+    await user.click(screen.getByRole('button', { name: 'Mirror the tool-side half (4 plies)' }));
+    // plies 1 and 2 (0°, 45°) kept; plies 3 and 4 become their mirror (45°, 0°)
+    expect(angles()).toEqual([0, 45, 45, 0]);
+    expect(screen.getByTestId('layup-symmetry').textContent).toBe('symmetric');
+    // symmetric already: nothing left to mirror
+    expect((screen.getByRole('button', { name: 'Mirror the tool-side half (4 plies)' }) as HTMLButtonElement).disabled).toBe(true);
+  });
+
+  it('with an odd count keeps the middle ply as its own mirror', async () => {
+    const user = userEvent.setup();
+    render(<LayupPanel />);
+    // the 3-ply stack 0/45/90: ply 2 (45°) is the middle
+    await user.click(screen.getByRole('button', { name: 'Mirror the tool-side half (3 plies)' }));
+    expect(angles()).toEqual([0, 45, 0]);
   });
 });

@@ -2,7 +2,7 @@ import { useMemo, useState, type DragEvent, type KeyboardEvent } from 'react';
 import { Panel } from '../../../../components/ui/panel';
 import { NumberField } from '../../../../components/ui/number-field';
 import { issuesUnder } from '../../model/study-validation';
-import { isSymmetric, mirrored, presetLabels, presetPlies, presetPlyCount, stackCode, totalThicknessMm, type LayupPreset } from '../../model/layup';
+import { isSymmetric, MAX_PLIES, mirrored, mirroredToolSideHalf, presetLabels, presetPlies, presetPlyCount, stackCode, totalThicknessMm, type LayupPreset } from '../../model/layup';
 import { useIssueCount } from '../../hooks/use-study-field';
 import { studyEditorStore, useStudyEditor } from '../../stores/study-editor-store';
 
@@ -90,14 +90,24 @@ export function LayupPanel() {
         >
           Apply ({presetPlyCount(preset, n)} plies)
         </button>
+        {/* Both say what they make: mirroring the whole stack doubles it, which is easy to miss. */}
         <button
           type="button"
           className={btn}
-          disabled={n * 2 > 200}
-          title="Append the stack's mirror image so the laminate is symmetric"
-          onClick={() => edit('Mirror the stack', (d) => void (d.layup.plies = mirrored(plies)))}
+          disabled={n * 2 > MAX_PLIES}
+          title={n * 2 > MAX_PLIES ? `${n * 2} plies would exceed the ${MAX_PLIES}-ply limit` : `Append the stack's mirror image: ${n} → ${n * 2} plies, symmetric`}
+          onClick={() => edit(`Mirror the stack (${n} → ${n * 2} plies)`, (d) => void (d.layup.plies = mirrored(plies)))}
         >
-          Mirror
+          Mirror → {n * 2} plies
+        </button>
+        <button
+          type="button"
+          className={btn}
+          disabled={n < 2 || isSymmetric(plies)}
+          title={`Keep the ${Math.ceil(n / 2)} tool-side plies and mirror them onto the bag side: still ${n} plies, symmetric about the mid-plane`}
+          onClick={() => edit('Mirror the tool-side half', (d) => void (d.layup.plies = mirroredToolSideHalf(plies)))}
+        >
+          Mirror the tool-side half ({n} plies)
         </button>
       </div>
       <p className="mb-1 truncate font-mono text-[11px] text-ink-faint" title={stackCode(plies)}>
@@ -172,7 +182,7 @@ export function LayupPanel() {
                   type="button"
                   className={btn}
                   aria-label={`Insert a ply above ply ${i + 1}`}
-                  disabled={n >= 200}
+                  disabled={n >= MAX_PLIES}
                   onClick={() => edit(`Insert ply above ${i + 1}`, (d) => void d.layup.plies.splice(i + 1, 0, { ...p }))}
                 >
                   +
