@@ -3,6 +3,7 @@ import { scaleLinear, type ScaleLinear } from 'd3-scale';
 import type { SimulationResult } from '../../../shared/solver/simulation-result';
 import { ChartFigure, runsDescription, type LegendEntry } from './chart-figure';
 import { markerIndices, markerPath, RUN_STYLES } from './run-styles';
+import { labelRows, textWidthPx } from './label-rows';
 import { ScrubLine } from './scrub-line';
 import { bandPath, seriesPath } from './series-path';
 import { TimeAxisProvider, TimeTicks, ValueTicks, type TimeAxis } from './time-axis';
@@ -128,15 +129,17 @@ const SeriesLayer = memo(function SeriesLayer({
   );
 });
 
+const EVENT_FONT_PX = 10;
+const eventText = (event: HistoryEvent, prefix: string) => `${prefix}${event.label} ${event.minutes.toFixed(0)} min`;
+
 function EventMark({ event, x, height, prefix, row }: { event: HistoryEvent; x: ScaleLinear<number, number>; height: number; prefix: string; row: number }) {
   if (!(event.minutes >= 0)) return null;
   const px = x(event.minutes);
   return (
     <g pointerEvents="none">
       <line x1={px} x2={px} y1={0} y2={height} stroke={event.colour} strokeDasharray="3 3" />
-      <text x={px + 3} y={9 + row * 11} fontSize={10} fill={event.colour}>
-        {prefix}
-        {event.label} <tspan className="num">{event.minutes.toFixed(0)} min</tspan>
+      <text x={px + 3} y={9 + row * 11} fontSize={EVENT_FONT_PX} fill={event.colour}>
+        {eventText(event, prefix)}
       </text>
     </g>
   );
@@ -197,6 +200,12 @@ export function HistoryChart({
     ...guides.map((g) => ({ label: g.label, colour: g.colour, dash: g.dash })),
   ].filter((entry, i, all) => all.findIndex((e) => e.label === entry.label) === i);
 
+  // Event labels that would run into each other (gel and vitrification of two runs close in time) stagger.
+  const eventPrefix = (ev: HistoryEvent) => (overlaid ? `${RUN_STYLES[ev.run].letter} ` : '');
+  const eventRows = labelRows(
+    events.map((ev) => ({ x: ev.minutes >= 0 ? axis.x(ev.minutes) : -Infinity, width: textWidthPx(eventText(ev, eventPrefix(ev)), EVENT_FONT_PX) + 3 })),
+  );
+
   function scrub(e: ReactPointerEvent<SVGRectElement>) {
     const rect = e.currentTarget.getBoundingClientRect();
     onScrub?.(axis.x.invert(e.clientX - rect.left));
@@ -224,7 +233,7 @@ export function HistoryChart({
             <line key={g.value} x1={0} x2={axis.plotWidth} y1={y(g.value)} y2={y(g.value)} stroke={g.colour} strokeDasharray={g.dash} pointerEvents="none" />
           ))}
           {events.map((ev, i) => (
-            <EventMark key={i} event={ev} x={axis.x} height={plotHeight} prefix={overlaid ? `${RUN_STYLES[ev.run].letter} ` : ''} row={overlaid ? ev.run : 0} />
+            <EventMark key={i} event={ev} x={axis.x} height={plotHeight} prefix={eventPrefix(ev)} row={eventRows[i]} />
           ))}
           {scrubMin !== undefined && <ScrubLine x={axis.x} minutes={scrubMin} height={plotHeight} />}
           {onScrub && (

@@ -141,3 +141,28 @@ describe('through-thickness and shape charts', () => {
     expect(drawnCornerDeg(90, 2, 50)).toEqual({ deg: 5, clipped: true });
   });
 });
+
+describe('axis and event labels', () => {
+  it('set the unit upright beside the tick labels, clear of the top one, inside the margin', () => {
+    render(<CureChart runs={[run('only', 120, [1, 2])]} axis={axis} />);
+    const unit = screen.getByTestId('chart-cure').querySelector('[data-axis-unit]')!;
+    expect(unit.textContent).toBe('α');
+    const [, tx, ty] = /translate\(([-\d.]+),([-\d.]+)\) rotate\(-90\)/.exec(unit.getAttribute('transform')!)!.map(Number);
+    // tick labels ("0.0" … "1.0") end 6 px left of the axis and are about 18 px wide
+    expect(tx).toBeLessThan(-6 - 18);
+    expect(tx).toBeGreaterThan(-CHART_MARGIN.left + 5);
+    // halfway up the plot, not level with the top label
+    expect(ty).toBeGreaterThan(30);
+  });
+
+  it('stagger gel and vitrification labels of two runs that would overlap', () => {
+    const a = run('reference', 100, [1, 2]);
+    const b = run('candidate', 110, [1, 2]);
+    (a.result.summary as { vitrificationTimeMin: number }).vitrificationTimeMin = 120;
+    render(<CureChart runs={[a, b]} axis={axis} />);
+    const labels = Array.from(screen.getByTestId('chart-cure').querySelectorAll('text')).filter((t) => /^[AB] .* min$/.test(t.textContent ?? ''));
+    expect(labels.map((t) => t.textContent)).toEqual(['A gel 100 min', 'A vitrified 120 min', 'B gel 110 min']);
+    // 10 px and 20 px apart on a 1 px/min axis, each label ~70 px wide: three rows
+    expect(new Set(labels.map((t) => t.getAttribute('y'))).size).toBe(3);
+  });
+});

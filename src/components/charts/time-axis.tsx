@@ -70,7 +70,7 @@ export function TimeTicks({ height, showLabels = true }: { height: number; showL
   );
 }
 
-/** Horizontal grid and labels for a value scale; the unit sits above the labels. */
+/** Horizontal grid and labels for a value scale; the unit reads upward beside the labels. */
 export function ValueTicks({
   y,
   width,
@@ -84,9 +84,13 @@ export function ValueTicks({
   count?: number;
   format?: (v: number) => string;
 }) {
+  const ticks = y.ticks(count);
+  // Clear of the widest tick label (right-aligned 6 px left of the axis), at about 6 px per character.
+  const widest = Math.max(0, ...ticks.map((v) => format(v).length));
+  const labelGap = 6 + widest * 6 + 8;
   return (
     <g aria-hidden className="text-ink-faint">
-      {y.ticks(count).map((v) => (
+      {ticks.map((v) => (
         <g key={v} transform={`translate(0,${y(v)})`}>
           <line x1={0} x2={width} stroke="var(--color-rule)" strokeWidth={0.6} />
           <text x={-6} dy="0.32em" textAnchor="end" className="num" fontSize={10} fill="currentColor">
@@ -94,7 +98,14 @@ export function ValueTicks({
           </text>
         </g>
       ))}
-      <text x={-6} y={-6} textAnchor="end" fontSize={10} fill="currentColor">
+      {/* The unit stands upright beside the tick labels, halfway up the axis: above them it sat on the top label. */}
+      <text
+        transform={`translate(${-labelGap},${(y.range()[0] + y.range()[1]) / 2}) rotate(-90)`}
+        textAnchor="middle"
+        fontSize={10}
+        fill="currentColor"
+        data-axis-unit
+      >
         {unit}
       </text>
     </g>
