@@ -6,6 +6,7 @@ import { parseStudy } from '../../shared/schemas/index';
 import { UploadChunk, CHUNK_BYTES } from '../models/upload-chunk.model';
 import { readChunks } from '../services/run-logs.service';
 import { unpackSeries } from '../services/run-log-series';
+import { createMigrator } from '../db/migrator';
 
 // Run logs through the real HTTP stack and the real MariaDB: inspect, upload (atomic), read, download,
 // and the lead's review decision with its role checks.
@@ -74,6 +75,35 @@ describe('the demo run log in the seed', () => {
       part: { id: partId, partNumber: part.partNumber, name: part.name },
     });
     expect(typeof detail.body.record.replay.baseline.maxTransverseStressMPa).toBe('number');
+  });
+});
+
+describe('listing run logs', () => {
+  it('reads the summary columns, not each run\'s stored analysis', async () => {
+    const list = await call(viewer, 'get', `/api/studies/${studyId}/run-logs`).expect(200);
+    const id = list.body[0].id as number;
+    const upload = (await h.db.models.Upload.findByPk(id))!;
+    const record = upload.parsed as RunLogRecord;
+    const [[row]] = (await h.db.sequelize.query('SELECT `rows`, duration_min, violations, warnings FROM run_log_summaries WHERE upload_id = ?', { replacements: [id] })) as [
+      { rows: number; duration_min: number; violations: number; warnings: number }[],
+      unknown,
+    ];
+    // written with the upload, from the same record
+    expect(row).toEqual({ rows: record.rows, duration_min: record.durationMin, violations: 1, warnings: 0 });
+    // the list answers from the columns: change one and the list follows, the JSON untouched
+    await h.db.sequelize.query('UPDATE run_log_summaries SET violations = 9 WHERE upload_id = ?', { replacements: [id] });
+    const again = await call(viewer, 'get', `/api/parts/${partId}/run-logs`).expect(200);
+    expect(again.body[0].findings).toEqual({ violations: 9, warnings: 0 });
+    expect(again.body[0].rows).toBe(record.rows);
+  });
+
+  it('fills the summaries of runs stored before the summary table (migration 0102)', async () => {
+    const migrator = createMigrator(h.db.sequelize, { quiet: true });
+    await migrator.down({ to: '0102-run-log-summaries.ts' });
+    await migrator.up();
+    const list = await call(viewer, 'get', `/api/parts/${partId}/run-logs`).expect(200);
+    expect(list.body[0]).toMatchObject({ findings: { violations: 1, warnings: 0 } });
+    expect(list.body[0].rows).toBeGreaterThan(100);
   });
 });
 

@@ -8,6 +8,7 @@ import { UploadChunk, CHUNK_BYTES, type UploadChunkPart } from '../models/upload
 import { badRequest, conflict, notFound } from '../middleware/http-error';
 import { spawnTsWorker } from './ts-worker';
 import { decodeRunLogBytes } from './run-log-text';
+import { defineRunLogSummary } from './run-log-summary';
 
 // Run logs in the library: an upload is read, checked and replayed in a worker thread, then stored in one
 // transaction (row, raw file, parsed series, audit event) or not at all. Review decisions are made once by a
@@ -167,6 +168,11 @@ export async function storeRunLog(transaction: Transaction, input: StoreRunLogIn
     },
     { transaction },
   );
+  const counts = countFindings(input.record);
+  await defineRunLogSummary(Upload.sequelize!).create(
+    { uploadId: upload.id, rows: input.record.rows, durationMin: input.record.durationMin, ...counts },
+    { transaction },
+  );
   await storeChunks(upload.id, 'raw', input.file.buffer, transaction);
   await storeChunks(upload.id, 'series', input.series, transaction);
   if (options.audit === false) return upload; // the demo seed records its own single event
@@ -177,7 +183,7 @@ export async function storeRunLog(transaction: Transaction, input: StoreRunLogIn
       action: 'run-log.upload',
       subjectType: 'upload',
       subjectId: upload.id,
-      details: { studyId: input.studyId, fileName: upload.fileName, checksumSha256: input.checksum, findings: countFindings(input.record) },
+      details: { studyId: input.studyId, fileName: upload.fileName, checksumSha256: input.checksum, findings: counts },
     },
     { transaction },
   );
@@ -199,9 +205,12 @@ function reviewView(r: Review & { decider?: User }) {
 
 type UploadWith = Upload & { uploader?: User; reviews?: (Review & { decider?: User })[] };
 
+type ListFigures = { rows: number; durationMin: number; violations: number; warnings: number };
+
+const figuresOf = (record: RunLogRecord): ListFigures => ({ rows: record.rows, durationMin: record.durationMin, ...countFindings(record) });
+
 /** The list entry: who, when, what file, how many findings, the decision if made. */
-export function runLogSummaryView(u: UploadWith) {
-  const record = u.parsed as RunLogRecord;
+export function runLogSummaryView(u: UploadWith, figures: ListFigures) {
   const review = u.reviews?.[0];
   return {
     id: u.id,
@@ -211,9 +220,9 @@ export function runLogSummaryView(u: UploadWith) {
     checksumSha256: u.checksumSha256,
     uploadedAt: u.createdAt,
     uploadedBy: person(u.uploader),
-    rows: record.rows,
-    durationMin: record.durationMin,
-    findings: countFindings(record),
+    rows: figures.rows,
+    durationMin: figures.durationMin,
+    findings: { violations: figures.violations, warnings: figures.warnings },
     review: review ? reviewView(review) : null,
   };
 }
@@ -223,14 +232,22 @@ const withPeople = [
   { model: Review, as: 'reviews', include: [{ model: User, as: 'decider', attributes: ['id', 'login', 'name'] }] },
 ];
 
+/** A study's or a part's runs from the metadata columns only: the stored analysis JSON is not read. */
 export async function listRunLogs(where: { studyId?: number; studyIds?: number[] }) {
   const uploads = await Upload.findAll({
     where: { kind: 'run-log', studyId: where.studyIds ?? where.studyId! },
-    attributes: { exclude: [] },
+    attributes: { exclude: ['parsed'] },
     include: withPeople,
     order: [['createdAt', 'DESC'], ['id', 'DESC']],
   });
-  return uploads.map((u) => runLogSummaryView(u as UploadWith));
+  const summaries = await defineRunLogSummary(Upload.sequelize!).findAll({ where: { uploadId: uploads.map((u) => u.id) } });
+  const byId = new Map(summaries.map((x) => [x.uploadId, x]));
+  return uploads.map((u) => {
+    const figures = byId.get(u.id);
+    // every run log gets its summary row in the upload's transaction (and by migration 0102 before that)
+    if (!figures) throw new Error(`run log ${u.id} has no summary row`);
+    return runLogSummaryView(u as UploadWith, figures);
+  });
 }
 
 export async function runLogDetail(id: number) {
@@ -240,7 +257,7 @@ export async function runLogDetail(id: number) {
   const part = study ? await Part.findByPk(study.partId, { attributes: ['id', 'partNumber', 'name'] }) : null;
   const record = u.parsed as RunLogRecord;
   return {
-    ...runLogSummaryView(u),
+    ...runLogSummaryView(u, figuresOf(record)),
     study: study ? { id: study.id, title: study.title } : null,
     part: part ? { id: part.id, partNumber: part.partNumber, name: part.name } : null,
     baseline: await baselineName(record),
