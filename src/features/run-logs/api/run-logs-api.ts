@@ -70,7 +70,15 @@ export const partRunLogsQuery = (partId: string) =>
 export const runLogQuery = (id: string) =>
   queryOptions({ queryKey: runLogKeys.detail(id), queryFn: () => api.get<RunLogDetail>(`/run-logs/${encodeURIComponent(id)}`) });
 
+/** The caller's role in the study's team (from the study itself), to offer the upload only to engineers and leads. */
+export const studyRoleQuery = (studyId: string) =>
+  queryOptions({
+    queryKey: ['run-logs', 'study-role', studyId] as const,
+    queryFn: async () => (await api.get<{ role: RunLogDetail['role'] }>(`/studies/${encodeURIComponent(studyId)}`)).role,
+  });
+
 export const useStudyRunLogs = (studyId: string) => useQuery(studyRunLogsQuery(studyId));
+export const useStudyRole = (studyId: string) => useQuery(studyRoleQuery(studyId));
 export const usePartRunLogs = (partId: string) => useQuery(partRunLogsQuery(partId));
 export const useRunLog = (id: string) => useQuery(runLogQuery(id));
 

@@ -1,6 +1,5 @@
 import { Link, useParams } from 'react-router-dom';
-import { useStudyRunLogs } from '../api/run-logs-api';
-import { useStudyOverview } from '../../library/api/get-study-history';
+import { useStudyRole, useStudyRunLogs } from '../api/run-logs-api';
 import { RunLogList } from './run-log-list';
 import { LoadError, Loading } from './status';
 import { UploadPanel } from './upload-panel';
@@ -11,7 +10,7 @@ export function StudyRunLogsPage() {
   const list = useStudyRunLogs(studyId);
   // The upload is for engineers and leads; a viewer is not walked through it only to be refused at the end
   // (the server refuses it anyway).
-  const role = useStudyOverview(studyId).data?.role ?? null;
+  const role = useStudyRole(studyId).data ?? null;
   const canUpload = role === 'engineer' || role === 'lead';
   if (list.isPending) return <Loading what="the run logs" />;
   if (list.isError) return <LoadError error={list.error} what="the run logs" />;
