@@ -398,16 +398,26 @@ export function createCureBatch(size: number): CureBatch {
 // is boxed (a heap allocation per number). Hence one call site per helper and loop (the form is chosen
 // outside the loop), and module-private constants (see SEED).
 
-// rateAt at x[i] for the listed nodes into out[i].
+// rateAt at x[i] for the listed nodes into out[i]: the chemical rate, then the diffusion factor in a loop of
+// its own (withDiffusion(), written out: as a call it was not inlined and boxed its three numbers).
 function stageRates(k: PreparedKinetics, w: CureBatch, count: number, out: Float64Array): void {
   const { a, K1, K2, K3, centre, x } = w;
   if (k.formCode === KAMAL_SOUROUR) {
-    for (let i = 0; i < count; i++) out[i] = withDiffusion(k, kamalSourourRate(k, K1[i], K2[i], x[i]), centre[i], x[i]);
+    for (let i = 0; i < count; i++) out[i] = kamalSourourRate(k, K1[i], K2[i], x[i]);
   } else if (k.formCode === NTH_ORDER) {
-    for (let i = 0; i < count; i++) out[i] = withDiffusion(k, nthOrderRate(k, K1[i], x[i]), centre[i], x[i]);
+    for (let i = 0; i < count; i++) out[i] = nthOrderRate(k, K1[i], x[i]);
   } else {
-    for (let i = 0; i < count; i++) {
-      out[i] = withDiffusion(k, leeLoosSpringerRate(k, K1[i], K2[i], K3[i], x[i], a[i] >= SWITCH_ALPHA), centre[i], x[i]);
+    for (let i = 0; i < count; i++) out[i] = leeLoosSpringerRate(k, K1[i], K2[i], K3[i], x[i], a[i] >= SWITCH_ALPHA);
+  }
+  const c = k.diffusionC;
+  const diffusion = k.hasDiffusion;
+  for (let i = 0; i < count; i++) {
+    const r = out[i];
+    if (!(r > 0)) out[i] = 0;
+    else if (diffusion) {
+      // Below −40 the exponential is under 1e-17 of 1: f_d is 1 to double precision (as in withDiffusion).
+      const y = c * (x[i] - centre[i]);
+      if (y > -40) out[i] = r / (1 + Math.exp(y));
     }
   }
 }

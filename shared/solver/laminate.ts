@@ -11,6 +11,9 @@
 
 /** Fraction of its unrelaxed stiffness an ungelled point keeps so the equations stay solvable; it carries no stress. */
 export const LIQUID_STIFFNESS_FRACTION = 1e-6;
+// The hot loop reads a module-private copy: an exported binding of an ES module is not folded by V8 and a
+// number read from it is boxed (kinetics.ts says more).
+const LIQUID = LIQUID_STIFFNESS_FRACTION;
 
 // --- Ply stiffness and rotation -------------------------------------------------------------------------
 
@@ -386,8 +389,8 @@ export function laminateStep(lam: IncrementalLaminate, held: boolean, heldStrain
       const a0 = g.w0[p];
       const a1 = g.w1[p] / H;
       const active = lam.active[p] === 1;
-      const cR = active ? 1 : LIQUID_STIFFNESS_FRACTION;
-      const cD = active ? share[p] : LIQUID_STIFFNESS_FRACTION;
+      const cR = active ? 1 : LIQUID;
+      const cD = active ? share[p] : LIQUID;
       const b = 8 * lam.plyGroup[p >> 1];
       gw[b] += a0 * cR;
       gw[b + 1] += a0 * zH * cR;

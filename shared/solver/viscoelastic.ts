@@ -17,9 +17,12 @@ import { gpaToPa } from '../units';
 
 /** R in J/(mol·K) (CODATA 2018, exact). */
 export const GAS_CONSTANT = 8.314462618;
+const R_GAS = GAS_CONSTANT;
 
 /** |log₁₀ a| is held below this so reduced time stays finite far from T_r. */
 export const MAX_LOG10_SHIFT = 250;
+// Module-private copies for the hot paths (an exported binding is not folded; kinetics.ts says why).
+const MAX_LOG10 = MAX_LOG10_SHIFT;
 
 /** Below this x the closed form (1 − e^(−x))/x loses digits; its series is used instead. */
 const SMALL_X = 1e-3;
@@ -114,9 +117,9 @@ function cureTableLog10(alpha: Float64Array, log10a: Float64Array, a: number): n
 export function log10ShiftFactor(shift: ShiftSI, TK: number, tgK: number, alpha: number): number {
   const tr = tgK + shift.offsetK;
   const d = TK - tr;
-  let la = d >= 0 ? (-shift.wlfC1 * d) / (shift.wlfC2K + d) : (shift.arrheniusEJPerMol / (GAS_CONSTANT * Math.LN10)) * (1 / TK - 1 / tr);
+  let la = d >= 0 ? (-shift.wlfC1 * d) / (shift.wlfC2K + d) : (shift.arrheniusEJPerMol / (R_GAS * Math.LN10)) * (1 / TK - 1 / tr);
   if (shift.cureAlpha && shift.cureLog10a) la += cureTableLog10(shift.cureAlpha, shift.cureLog10a, alpha);
-  return Math.min(MAX_LOG10_SHIFT, Math.max(-MAX_LOG10_SHIFT, la));
+  return Math.min(MAX_LOG10, Math.max(-MAX_LOG10, la));
 }
 
 /** dξ/dt = 1/a(T, α) = 10^(−log₁₀ a). */
@@ -168,6 +171,7 @@ export function chileGlassyFraction(chile: ChileSI, TK: number, tgK: number): nu
 
 /** Window over which the history plot's apparent modulus is taken (a Prony resin has no single modulus). */
 export const APPARENT_MODULUS_WINDOW_S = 60;
+const MODULUS_WINDOW_S = APPARENT_MODULUS_WINDOW_S;
 
 /**
  * Resin modulus for the history plot, Pa: 0 before gel (liquid); CHILE: its modulus at T*; Prony: the
@@ -177,7 +181,7 @@ export function apparentResinModulusPa(resin: ResinRelaxation, gelPoint: number,
   if (!(alpha >= gelPoint)) return 0;
   const range = resin.unrelaxedPa - resin.relaxedPa;
   if (resin.model === 'chile') return resin.relaxedPa + range * chileGlassyFraction(resin.chile, TK, tgK);
-  const xi = APPARENT_MODULUS_WINDOW_S * reducedTimeRate(resin.shift, TK, tgK, alpha);
+  const xi = MODULUS_WINDOW_S * reducedTimeRate(resin.shift, TK, tgK, alpha);
   return resin.relaxedPa + range * normalisedRelaxation(resin.weights, resin.timesS, xi);
 }
 
