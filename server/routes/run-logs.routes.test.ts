@@ -149,6 +149,38 @@ describe('uploading a run log', () => {
     expect(history.body[0].id).toBe(res.body.id);
   });
 
+  it('leaves a noisy TC out of the checks and the replay, unless the uploader kept it; the choice is stored', async () => {
+    // TC1 (column 4) with ±3 °C of alternating noise: far above the 1 °C noise limit
+    const noisy = (csv: string) =>
+      csv
+        .split('\n')
+        .map((line, i) => {
+          if (i === 0 || line === '') return line;
+          const cells = line.split(',');
+          cells[3] = (Number(cells[3]) + (i % 2 ? 3 : -3)).toFixed(1);
+          return cells.join(',');
+        })
+        .join('\n');
+    const left = noisy(demoCsv);
+    const mapping = inspectRunLog(left).mapping;
+    const res = await upload(engineer, left, mapping).expect(201);
+    let record = res.body.record as RunLogRecord;
+    expect(record.hygiene.flagged).toMatchObject([{ label: 'TC1 leading bag-side', rules: ['hygiene.noisy'], excluded: true }]);
+    expect(record.spec.rates.map((r) => r.channel)).not.toContain('TC1 leading bag-side');
+    expect(record.replay!.atTcs.map((t) => t.channel)).not.toContain('TC1 leading bag-side');
+
+    const kept = noisy(demoRunLogCsv(parseStudy((await h.db.models.Revision.findOne({ where: { studyId }, order: [['number', 'DESC']] }))!.params), { start: '2026-04-03T07:10:00' }));
+    const keepMapping = { columns: inspectRunLog(kept).mapping.columns.map((c) => (c.column === 3 ? { ...c, keepIfFlagged: true } : c)) };
+    const res2 = await upload(engineer, kept, keepMapping).expect(201);
+    record = res2.body.record as RunLogRecord;
+    expect(record.mapping.columns[3]).toMatchObject({ role: 'part', keepIfFlagged: true });
+    expect(record.hygiene.flagged).toMatchObject([{ label: 'TC1 leading bag-side', excluded: false }]);
+    expect(record.spec.rates.map((r) => r.channel)).toContain('TC1 leading bag-side');
+    // stored with the upload: read back the same
+    const detail = await call(viewer, 'get', `/api/run-logs/${res2.body.id}`).expect(200);
+    expect(detail.body.record.mapping.columns[3].keepIfFlagged).toBe(true);
+  });
+
   it('keeps a file larger than one database chunk intact, and its parsed series with it', async () => {
     // 220 000 rows at 0.1 s: about 7 MB, so the raw file spans two chunks and the series three
     const rows = ['Time (s),Air (°C),TC1 (°C),TC2 (°C),Pressure (bar)'];
