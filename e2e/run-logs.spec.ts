@@ -58,7 +58,19 @@ test('upload a run log, map its columns, see the long hold flagged, open the rep
   await expect(refusal).toContainText('Column “TC1 (°C)”');
   await expect(refusal).toContainText('Nothing was stored');
 
+  // A short log whose time column names no unit: allowed, but only after the engineer confirms the warnings.
+  const short = path.join(path.dirname(file), 'short.csv');
+  fs.writeFileSync(short, ['Elapsed,Air (°C),TC1 (°C)', ...Array.from({ length: 12 }, (_, i) => `${i * 60},${20 + i},${19 + i}`)].join('\n'));
+  await engineer.getByLabel('Run log file').setInputFiles(short);
+  const warnings = engineer.getByTestId('upload-warnings');
+  await expect(warnings).toContainText('“Elapsed” names no unit; it is read as');
+  await expect(warnings).toContainText('Only 12 data rows');
+  await expect(engineer.getByRole('button', { name: 'Upload and check' })).toBeDisabled();
+  await warnings.getByRole('checkbox').check();
+  await expect(engineer.getByRole('button', { name: 'Upload and check' })).toBeEnabled();
+
   await engineer.getByLabel('Run log file').setInputFiles(file);
+  await expect(engineer.getByTestId('upload-warnings')).toHaveCount(0);
 
   // The mapping step proposes every column; the engineer confirms it and renames one thermocouple.
   const mapping = engineer.getByTestId('mapping-step');
