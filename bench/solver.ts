@@ -3,7 +3,6 @@
  * with plies, steps and Prony terms (fitted exponent of time ∝ xᵖ; linear growth is p = 1).
  * Run alone with `npx tsx bench/solver.ts`, or through `npm run bench`.
  */
-import { existsSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { parseStudy, type StudyParams } from '../shared/schemas/study';
@@ -98,14 +97,7 @@ export async function runSolverBench(): Promise<Figures> {
   const termTimes = terms.map((n) => timeIt(withPronyTerms(ref, n)).ms);
   figures['growth exponent vs Prony terms (2→32)'] = round(growthExponent(terms, termTimes), 3);
   figures['target exponent (issue 3)'] = '≤ 1.1';
-
-  // The recursion-vs-hereditary-integral ratio is measured by the viscoelastic bench (solver-mechanics).
-  const here = path.dirname(fileURLToPath(import.meta.url));
-  if (existsSync(path.join(here, 'viscoelastic.ts'))) {
-    const mod = (await import('./viscoelastic')) as Record<string, unknown>;
-    const run = mod.runViscoelasticBench as (() => Promise<Figures>) | undefined;
-    if (run) for (const [k, v] of Object.entries(await run())) figures[`viscoelastic: ${k}`] = v;
-  }
+  // The recursion-vs-hereditary-integral ratio is bench/viscoelastic.ts's figure; bench/run.ts runs it once.
   return figures;
 }
 

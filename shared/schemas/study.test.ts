@@ -104,6 +104,17 @@ describe('study schema', () => {
     expect(issueAt(up, 'cycle.segments.4.targetC').message).toContain('allowed < 180 °C');
   });
 
+  it('says how many list items came and the allowed count', () => {
+    // The allowed counts are our input rules (issue 3: "any count from 1 to 200" plies); no outside source.
+    expect(issueAt(issuesOf((s) => (s.layup.plies = [])), 'layup.plies').message).toBe('0 plies: allowed 1 to 200');
+    const many = issuesOf((s) => (s.layup.plies = Array.from({ length: 201 }, () => ({ angleDeg: 0, thicknessMm: 0.1 }))));
+    expect(issueAt(many, 'layup.plies').message).toBe('201 plies: allowed 1 to 200');
+    expect(issueAt(issuesOf((s) => (s.resin.modulus.prony.weights = [])), 'resin.modulus.prony.weights').message).toBe('0 terms: allowed 1 to 40');
+    const table = issuesOf((s) => (s.resin.modulus.shift.cureTable = { alpha: [0.5], log10a: [0] }));
+    expect(issueAt(table, 'resin.modulus.shift.cureTable.alpha').message).toBe('1 point: allowed 2 to 100');
+    expect(issueAt(issuesOf((s) => (s.cycle.segments = [])), 'cycle.segments').message).toBe('0 segments: allowed 1 to 40');
+  });
+
   it('caps the length of a cycle at 14 days', () => {
     const issues = issuesOf((s) => {
       s.cycle.segments[3].holdMin = 10_000;
@@ -127,7 +138,7 @@ describe('study schema', () => {
 
   it('refuses fibre fractions, ply counts, whole-number fields and types out of range', () => {
     expect(issueAt(issuesOf((s) => (s.fibreVolumeFraction = 0.8)), 'fibreVolumeFraction').message).toContain('0.8 is out of range: allowed ≥ 0.3 and ≤ 0.75');
-    expect(issueAt(issuesOf((s) => (s.layup.plies = [])), 'layup.plies').message).toContain('at least 1 ply');
+    expect(issueAt(issuesOf((s) => (s.layup.plies = [])), 'layup.plies').message).toBe('0 plies: allowed 1 to 200');
     expect(issueAt(issuesOf((s) => (s.mesh.nodesPerPly = 2.5)), 'mesh.nodesPerPly').message).toContain('a whole number ≥ 2 and ≤ 6');
     expect(issueAt(issuesOf((s) => (s.heatTransfer.bagSideWPerM2K = 'high')), 'heatTransfer.bagSideWPerM2K').message).toContain('got "high"');
     expect(issueAt(issuesOf((s) => (s.resin.kinetics.form = 'magic')), 'resin.kinetics.form').message).toContain("allowed 'nth-order'");

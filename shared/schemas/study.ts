@@ -82,9 +82,18 @@ const diffusionSchema = z.object({
   alphaCTPerK: quantity({ min: -0.1, max: 0.1, unit: '1/K' }),
 });
 
+/** A list with a length range whose error says how many came and what is allowed ("0 plies: allowed 1 to 200"). */
+function listOf<T extends z.ZodType>(item: T, min: number, max: number, one: string, many: string) {
+  const error = (iss: { input?: unknown }) => {
+    const n = Array.isArray(iss.input) ? iss.input.length : 0;
+    return `${n} ${n === 1 ? one : many}: allowed ${min} to ${max}`;
+  };
+  return z.array(item).min(min, { error }).max(max, { error });
+}
+
 const cureTableSchema = z.object({
-  alpha: z.array(quantity(R.fraction)).min(2, { error: 'needs at least 2 points' }).max(100),
-  log10a: z.array(quantity({ min: -50, max: 50 })).min(2, { error: 'needs at least 2 points' }).max(100),
+  alpha: listOf(quantity(R.fraction), 2, 100, 'point', 'points'),
+  log10a: listOf(quantity({ min: -50, max: 50 }), 2, 100, 'point', 'points'),
 });
 
 const modulusSchema = z.object({
@@ -93,8 +102,8 @@ const modulusSchema = z.object({
   relaxedGPa: quantity({ gt: 0, max: 100, unit: 'GPa' }),
   poisson: quantity(R.poisson),
   prony: z.object({
-    weights: z.array(quantity(R.fraction)).min(1, { error: 'needs at least 1 term' }).max(40, { error: 'allowed ≤ 40 terms' }),
-    timesS: z.array(quantity({ gt: 0, max: 1e40, unit: 's' })).min(1, { error: 'needs at least 1 term' }).max(40, { error: 'allowed ≤ 40 terms' }),
+    weights: listOf(quantity(R.fraction), 1, 40, 'term', 'terms'),
+    timesS: listOf(quantity({ gt: 0, max: 1e40, unit: 's' }), 1, 40, 'term', 'terms'),
   }),
   shift: z.object({
     // WLF (Williams, Landel & Ferry 1955), referenced to T_r = Tg(α) + offset; Arrhenius below T_r.
@@ -280,17 +289,11 @@ export const cycleSchema = z.discriminatedUnion(
     z.object({
       kind: z.literal('segments'),
       startC: quantity({ min: -60, max: 300, unit: '°C' }),
-      segments: z
-        .array(segmentSchema)
-        .min(1, { error: 'needs at least 1 segment' })
-        .max(40, { error: (iss) => `${String((iss.input as unknown[]).length)} segments: allowed ≤ 40` }),
+      segments: listOf(segmentSchema, 1, 40, 'segment', 'segments'),
     }),
     z.object({
       kind: z.literal('record'),
-      points: z
-        .array(recordPoint)
-        .min(2, { error: 'needs at least 2 points' })
-        .max(20_000, { error: (iss) => `${String((iss.input as unknown[]).length)} points: allowed ≤ 20000` }),
+      points: listOf(recordPoint, 2, 20_000, 'point', 'points'),
     }),
   ],
   { error: (iss) => `unknown cycle kind ${formatValue((iss.input as { kind?: unknown })?.kind)}: allowed 'segments', 'record'` },
@@ -316,15 +319,16 @@ export const studyParamsSchema = z
     fibre: fibreCardSchema,
     fibreVolumeFraction: quantity({ min: 0.3, max: 0.75 }),
     layup: z.object({
-      plies: z
-        .array(
-          z.object({
-            angleDeg: quantity({ min: -90, max: 90, unit: '°' }),
-            thicknessMm: quantity({ min: 0.02, max: 2, unit: 'mm' }),
-          }),
-        )
-        .min(1, { error: 'needs at least 1 ply' })
-        .max(200, { error: (iss) => `${String((iss.input as unknown[]).length)} plies: allowed ≤ 200` }),
+      plies: listOf(
+        z.object({
+          angleDeg: quantity({ min: -90, max: 90, unit: '°' }),
+          thicknessMm: quantity({ min: 0.02, max: 2, unit: 'mm' }),
+        }),
+        1,
+        200,
+        'ply',
+        'plies',
+      ),
     }),
     tool: toolSchema,
     heatTransfer: z.object({

@@ -62,16 +62,15 @@ export function demoCarbonFibre(): FibreCard {
 }
 
 /**
- * Literature kinetics: Lee, W. I., Loos, A. C. & Springer, G. S., "Heat of reaction, degree of cure, and
- * viscosity of Hercules 3501-6 resin", J. Compos. Mater. 16 (1982) 510–520. Constants per minute as published,
+ * Literature kinetics: Lee, Loos & Springer, J. Compos. Mater. 16 (1982). Constants per minute as published,
  * heat of reaction 473.6 kJ/kg from the same paper. All other properties are our own invented values.
  */
 export function leeLoosSpringerResin(): ResinCard {
   return {
     name: 'Lee–Loos–Springer epoxy (literature kinetics)',
     provenance: {
-      source: 'Lee, Loos & Springer, J. Compos. Mater. 16 (1982): kinetics constants and heat of reaction',
-      note: 'Thermal, glass-transition and mechanical properties are Dwellform demo data, invented.',
+      source: 'Lee, Loos & Springer, J. Compos. Mater. 16 (1982)',
+      note: 'Kinetics constants and heat of reaction from the source; thermal, glass-transition and mechanical properties are Dwellform demo data, invented.',
     },
     kinetics: {
       form: 'lee-loos-springer',

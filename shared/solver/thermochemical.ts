@@ -115,7 +115,7 @@ export function createThermochemical(p: ThermochemicalParams, options: Thermoche
   const { initialK } = options;
   if (!(initialK > 0) || !Number.isFinite(initialK)) throw new RangeError(`initial temperature ${String(initialK)} K: allowed > 0 and finite`);
   const plies = p.layup.plies;
-  if (plies.length === 0) throw new RangeError('layup.plies: needs at least 1 ply');
+  if (plies.length === 0) throw new RangeError('layup.plies: 0 plies: allowed at least 1');
   const perPly = p.mesh.nodesPerPly;
   if (!Number.isInteger(perPly) || perPly < 2) throw new RangeError(`mesh.nodesPerPly: ${String(perPly)} is out of range: allowed a whole number ≥ 2`);
   const vf = p.fibreVolumeFraction;

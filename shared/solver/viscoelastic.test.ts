@@ -163,6 +163,9 @@ describe('shift factor', () => {
   });
 
   it('adds the cure table by linear interpolation, flat beyond its ends', () => {
+    // By definition of the card's optional cure table (physics.md §4: a user table of log₁₀ a_α(α) added to the
+    // shift); linear between its points and flat beyond them is our reading of a table (common practice, no
+    // source). At T = T_r the WLF part is 0, so the result is the table alone: halfway from 0.6 to 0.8 → 1.
     const withTable: ShiftSI = { ...shift, cureAlpha: Float64Array.of(0.4, 0.8), cureLog10a: Float64Array.of(-2, 2) };
     expectClose(log10ShiftFactor(withTable, 400, 400, 0.7), 1, 1e-12);
     expectClose(log10ShiftFactor(withTable, 400, 400, 0.1), -2, 1e-12);
@@ -170,6 +173,8 @@ describe('shift factor', () => {
   });
 
   it('stays finite far from T_r', () => {
+    // By definition: log₁₀ a is clamped to ±MAX_LOG10_SHIFT (a solver rule, README), so reduced time stays finite
+    // however far the state is from T_r; no outside source.
     const la = log10ShiftFactor({ ...shift, arrheniusEJPerMol: 2e6 }, 60, 500, 1);
     expect(Number.isFinite(la)).toBe(true);
     expect(Number.isFinite(reducedTimeIncrement(60, 10 ** -la, 10 ** -la))).toBe(true);
@@ -196,6 +201,9 @@ describe('resin modulus for the history', () => {
   });
 
   it('is glassy well below Tg and relaxed well above it for a Prony resin', () => {
+    // By definition of the Prony form (physics.md §4): far below T_r the shift factor is huge, nothing relaxes in
+    // the 60 s window and E → E_u; far above, a ≪ 1 and E → E∞. The two temperatures are common practice for
+    // "well below / above Tg" (no source).
     const prony: ResinRelaxation = { ...resin, model: 'prony', weights: Float64Array.of(0.5, 0.5), timesS: Float64Array.of(1e3, 1e6) };
     expectClose(apparentResinModulusPa(prony, 0.5, 300, 0.9, 450), 3e9, 1e-3);
     expectClose(apparentResinModulusPa(prony, 0.5, 500, 0.9, 400), 0.1e9, 1e-6);
