@@ -87,6 +87,13 @@ test('a fork compared with the baseline shows deltas, the flipped limit, a CSV w
   await expect(page.getByTestId('delta-maxHeatRateCPerMin')).toHaveText(/^\+[\d.]+ °C\/min$/);
   // Both runs overlaid on each chart, each with its own key.
   await expect(page.getByTestId('chart-temperatures').locator('[data-run]')).toHaveCount(2);
+  // The same charts as the workspace: all four temperatures, the profiles through the thickness, the shape.
+  await expect(page.getByTestId('chart-temperatures')).toContainText('part surface');
+  await expect(page.getByTestId('profile-temperature').locator('[data-run]')).toHaveCount(2);
+  await expect(page.getByTestId('profile-cure').locator('[data-run]')).toHaveCount(2);
+  await expect(page.getByTestId('chart-shape').locator('[data-run]')).toHaveCount(2);
+  // limits with their direction, at the unit's precision
+  await expect(heatUp).toContainText(/≤ [\d.]+ °C\/min/);
   await expect(page.getByTestId('figures-source')).toContainText('Recomputed in this browser');
 
   // The link is the comparison: a viewer of the team opens it and sees the same verdicts; someone signed out is
@@ -141,7 +148,8 @@ test('a fork compared with the baseline shows deltas, the flipped limit, a CSV w
   await expect(page.getByTestId('report-assumptions')).toContainText('one dimension');
   await expect(page.getByTestId('report-cautions')).toContainText('never replace');
   await expect(page.getByTestId('report-cautions')).toContainText('Exotherm risk');
-  await expect(page.getByTestId('run-charts').locator('svg[role="img"]')).toHaveCount(5);
+  // four histories, two profiles through the thickness, the ply stresses and the shape after demould
+  await expect(page.getByTestId('run-charts').locator('svg[role="img"]')).toHaveCount(8);
   // Count calls to the browser's print dialog instead of opening it (globalThis is the page's window there).
   await page.evaluate(() => {
     const w = globalThis as unknown as { printed: number; print: () => void };

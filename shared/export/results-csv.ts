@@ -79,7 +79,6 @@ export function resultsToCsv(result: CsvResult, meta: CsvMeta): string {
     ['fibre card', describeCard(meta.params.fibre)],
     ['fibre volume fraction', meta.params.fibreVolumeFraction],
     ['plies', meta.params.layup.plies.length],
-    ...cycleRows(meta.params.cycle),
     ['model version', result.modelVersion],
     ['exported at', meta.exportedAt.toISOString()],
     ['units', 'time in min; temperatures in °C; pressure in bar; stresses and modulus in MPa; z in mm from the tool side; degree of cure as a fraction 0..1'],
@@ -87,6 +86,8 @@ export function resultsToCsv(result: CsvResult, meta: CsvMeta): string {
     ['ply stress rows', plyPoints],
     ...(summary.warnings ?? []).map((w) => ['solver note', w]),
     ['caution', 'Predictions support, and never replace, part qualification, process specifications, local codes and licensed engineering practice.'],
+    // Last in the block, so the fixed rows above keep their places for readers that count them.
+    ...cycleRows(meta.params.cycle),
     [],
     [CSV_SECTION, 'time histories'],
     HISTORY_COLUMNS.map((c) => c.header),

@@ -123,9 +123,9 @@ describe('through-thickness and shape charts', () => {
     render(<ThroughThicknessCharts runs={[profiled('reference', 110), profiled('candidate', 130)]} minutes={2} />);
     const temperature = screen.getByTestId('profile-temperature');
     expect(temperature.querySelectorAll('[data-run]')).toHaveLength(2);
-    expect(within(temperature).getByRole('button', { name: 'Download Temperature as SVG' })).toBeTruthy();
-    expect(within(temperature).getByRole('button', { name: 'Download Temperature as PNG' })).toBeTruthy();
-    expect(within(screen.getByTestId('profile-cure')).getByRole('button', { name: 'Download Degree of cure as PNG' })).toBeTruthy();
+    expect(within(temperature).getByRole('button', { name: 'Download Temperature profile as SVG' })).toBeTruthy();
+    expect(within(temperature).getByRole('button', { name: 'Download Temperature profile as PNG' })).toBeTruthy();
+    expect(within(screen.getByTestId('profile-cure')).getByRole('button', { name: 'Download Cure profile as PNG' })).toBeTruthy();
     // at 2 min (the second step: steps are 120 s apart) B's top sits right of A's (130 °C against 110 °C)
     const endX = (letter: string) => Number(/L([\d.]+),[\d.-]+$/.exec(temperature.querySelector(`[data-run="${letter}"] > path`)!.getAttribute('d')!)![1]);
     expect(endX('B')).toBeGreaterThan(endX('A'));

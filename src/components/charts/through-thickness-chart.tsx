@@ -34,6 +34,7 @@ const M = { left: 34, right: 8, top: 8, bottom: 28 };
  */
 export const ProfileChart = memo(function ProfileChart({
   title,
+  quantity,
   unit,
   profiles,
   runLabels,
@@ -47,6 +48,8 @@ export const ProfileChart = memo(function ProfileChart({
   testId,
 }: {
   title: string;
+  /** the quantity under the horizontal axis, before its unit */
+  quantity: string;
   unit: string;
   /** one per run, in RUN_STYLES order */
   profiles: Profile[];
@@ -87,7 +90,7 @@ export const ProfileChart = memo(function ProfileChart({
           </g>
         ))}
         <text x={pw} y={ph + 24} textAnchor="end" fontSize={9} fill="var(--color-ink-faint)">
-          {title}, {unit}
+          {quantity}, {unit}
         </text>
         {y.ticks(3).map((t) => (
           <text key={t} x={-4} y={y(t)} dy="0.32em" textAnchor="end" fontSize={9} className="num" fill="var(--color-ink-faint)">
@@ -159,7 +162,8 @@ export function ThroughThicknessCharts({
   return (
     <div className="flex flex-wrap gap-1" data-testid="through-thickness-charts">
       <ProfileChart
-        title="Temperature"
+        title="Temperature profile"
+        quantity="temperature"
         unit="°C"
         profiles={temperatures}
         runLabels={runLabels}
@@ -172,7 +176,8 @@ export function ThroughThicknessCharts({
         testId="profile-temperature"
       />
       <ProfileChart
-        title="Degree of cure"
+        title="Cure profile"
+        quantity="degree of cure"
         unit="α"
         profiles={cures}
         runLabels={runLabels}
