@@ -69,59 +69,62 @@ export const ProfileChart = memo(function ProfileChart({
   const zTop = Math.max(1e-6, ...profiles.map((p) => p.zMm[p.zMm.length - 1] ?? 0));
   const x = scaleLinear().domain(domain).range([0, pw]).nice(3);
   const y = scaleLinear().domain([0, zTop]).range([ph, 0]);
+  // The figure keeps to the chart's width (its caption wraps) so two profiles sit side by side.
   return (
-    <ChartFigure
-      title={title}
-      legend={[]}
-      runLabels={runLabels}
-      width={width}
-      height={height}
-      ariaLabel={`${title} through the thickness${runsDescription(runLabels)}`}
-      fileBase={fileBase}
-      testId={testId}
-    >
-      <g transform={`translate(${M.left},${M.top})`}>
-        {x.ticks(3).map((t) => (
-          <g key={t} transform={`translate(${x(t)},0)`}>
-            <line y1={0} y2={ph} stroke="var(--color-rule)" strokeWidth={0.6} />
-            <text y={ph + 12} textAnchor="middle" fontSize={9} className="num" fill="var(--color-ink-faint)">
-              {format(t)}
-            </text>
-          </g>
-        ))}
-        <text x={pw} y={ph + 24} textAnchor="end" fontSize={9} fill="var(--color-ink-faint)">
-          {quantity}, {unit}
-        </text>
-        {y.ticks(3).map((t) => (
-          <text key={t} x={-4} y={y(t)} dy="0.32em" textAnchor="end" fontSize={9} className="num" fill="var(--color-ink-faint)">
-            {t}
-          </text>
-        ))}
-        <text x={-4} y={ph + 24} textAnchor="end" fontSize={9} fill="var(--color-ink-faint)">
-          z, mm
-        </text>
-        <line x1={0} x2={pw} y1={ph} y2={ph} stroke="var(--color-slate)" strokeWidth={2} />
-        {focusZMm !== null && <line x1={0} x2={pw} y1={y(focusZMm)} y2={y(focusZMm)} stroke="var(--color-fault)" strokeDasharray="3 2" />}
-        {profiles.map((p, r) => {
-          const style = RUN_STYLES[r];
-          const d = p.values.map((v, i) => `${i ? 'L' : 'M'}${x(v)},${y(p.zMm[i])}`).join('');
-          // A marker every few nodes, offset per run, so overlaid lines read apart in greyscale.
-          const every = Math.max(1, Math.ceil(p.values.length / 6));
-          return (
-            <g key={r} data-run={style.letter}>
-              <path d={d} fill="none" stroke={colour} strokeWidth={overlaid ? 1.6 : 2} strokeDasharray={style.dash} />
-              {overlaid &&
-                p.values
-                  .map((v, i) => [v, i] as const)
-                  .filter(([, i]) => i % every === (r * Math.ceil(every / 2)) % every)
-                  .map(([v, i]) => (
-                    <path key={i} d={markerPath(style.marker, 6)} transform={`translate(${x(v)},${y(p.zMm[i])})`} fill="var(--color-paper-raised)" stroke={colour} strokeWidth={1.2} />
-                  ))}
+    <div style={{ width }} className="shrink-0">
+      <ChartFigure
+        title={title}
+        legend={[]}
+        runLabels={runLabels}
+        width={width}
+        height={height}
+        ariaLabel={`${title} through the thickness${runsDescription(runLabels)}`}
+        fileBase={fileBase}
+        testId={testId}
+      >
+        <g transform={`translate(${M.left},${M.top})`}>
+          {x.ticks(3).map((t) => (
+            <g key={t} transform={`translate(${x(t)},0)`}>
+              <line y1={0} y2={ph} stroke="var(--color-rule)" strokeWidth={0.6} />
+              <text y={ph + 12} textAnchor="middle" fontSize={9} className="num" fill="var(--color-ink-faint)">
+                {format(t)}
+              </text>
             </g>
-          );
-        })}
-      </g>
-    </ChartFigure>
+          ))}
+          <text x={pw} y={ph + 24} textAnchor="end" fontSize={9} fill="var(--color-ink-faint)">
+            {quantity}, {unit}
+          </text>
+          {y.ticks(3).map((t) => (
+            <text key={t} x={-4} y={y(t)} dy="0.32em" textAnchor="end" fontSize={9} className="num" fill="var(--color-ink-faint)">
+              {t}
+            </text>
+          ))}
+          <text x={-4} y={ph + 24} textAnchor="end" fontSize={9} fill="var(--color-ink-faint)">
+            z, mm
+          </text>
+          <line x1={0} x2={pw} y1={ph} y2={ph} stroke="var(--color-slate)" strokeWidth={2} />
+          {focusZMm !== null && <line x1={0} x2={pw} y1={y(focusZMm)} y2={y(focusZMm)} stroke="var(--color-fault)" strokeDasharray="3 2" />}
+          {profiles.map((p, r) => {
+            const style = RUN_STYLES[r];
+            const d = p.values.map((v, i) => `${i ? 'L' : 'M'}${x(v)},${y(p.zMm[i])}`).join('');
+            // A marker every few nodes, offset per run, so overlaid lines read apart in greyscale.
+            const every = Math.max(1, Math.ceil(p.values.length / 6));
+            return (
+              <g key={r} data-run={style.letter}>
+                <path d={d} fill="none" stroke={colour} strokeWidth={overlaid ? 1.6 : 2} strokeDasharray={style.dash} />
+                {overlaid &&
+                  p.values
+                    .map((v, i) => [v, i] as const)
+                    .filter(([, i]) => i % every === (r * Math.ceil(every / 2)) % every)
+                    .map(([v, i]) => (
+                      <path key={i} d={markerPath(style.marker, 6)} transform={`translate(${x(v)},${y(p.zMm[i])})`} fill="var(--color-paper-raised)" stroke={colour} strokeWidth={1.2} />
+                    ))}
+              </g>
+            );
+          })}
+        </g>
+      </ChartFigure>
+    </div>
   );
 });
 
