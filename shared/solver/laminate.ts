@@ -4,10 +4,12 @@
 //
 // The incremental form (physics.md §6): every ply has two integration points, at its bottom and top faces;
 // stresses vary linearly between them, so the resultants are exact for uniform plies. Each step solves
-//   Σ ∫ [σ_old + Q_eff (Δε⁰ + zΔκ − Δε_free) + Σ (eᵢ − 1) hᵢ] {1, z} dz = 0,  Q_eff = Q̄∞ + Σ sᵢ gᵢ ΔQ̄
+//   Σ ∫ [σ_old + Q_eff (φ(Δε⁰ + zΔκ) − Δε_free) + Σ (eᵢ − 1) hᵢ] {1, z} dz = 0,  Q_eff = Q̄∞ + Σ sᵢ gᵢ ΔQ̄
 // for Δε⁰, Δκ (6×6). Writing the old stress in keeps the laminate in equilibrium without drift and turns a
 // tool release into an ordinary step. Growing stiffness enters incrementally: the current stiffness
-// multiplies only the current increment; old stress is never rescaled.
+// multiplies only the current increment; old stress is never rescaled. φ = 1 except in the step where a point
+// gels: it then takes up only the part of the step's strain after the crossing, so a gel front is not
+// rounded to whole steps.
 
 /** Fraction of its unrelaxed stiffness an ungelled point keeps so the equations stay solvable; it carries no stress. */
 export const LIQUID_STIFFNESS_FRACTION = 1e-6;
@@ -255,6 +257,12 @@ export interface IncrementalLaminate {
   sg: Float64Array;
   /** free-strain increment Δε_free per point, laminate axes */
   freeStrain: Float64Array;
+  /**
+   * Share φ of the step's laminate strain increment (Δε⁰ + zΔκ) a point takes up: 1, except in the step where
+   * the point gels, where it is the part of the step after the crossing (the strain is taken linear in time
+   * over the step). Kept at 1 unless the caller writes it.
+   */
+  strainShare: Float64Array;
   // Accumulated kinematics:
   midPlaneStrain: Float64Array;
   curvature: Float64Array;
@@ -297,6 +305,7 @@ export function createIncrementalLaminate(geometry: LaminateGeometry, qRelaxed: 
     e: new Float64Array(points * termCount),
     sg: new Float64Array(points * termCount),
     freeStrain: new Float64Array(3 * points),
+    strainShare: new Float64Array(points).fill(1),
     midPlaneStrain: new Float64Array(3),
     curvature: new Float64Array(3),
     lastIncrement: new Float64Array(6),
@@ -389,8 +398,11 @@ export function laminateStep(lam: IncrementalLaminate, held: boolean, heldStrain
       const a0 = g.w0[p];
       const a1 = g.w1[p] / H;
       const active = lam.active[p] === 1;
-      const cR = active ? 1 : LIQUID;
-      const cD = active ? share[p] : LIQUID;
+      // A point that gels inside the step takes up only the share φ of the step's strain increment; the
+      // floor keeps the matrix solvable when every stress-carrying point gelled at the very end of the step.
+      const phi = active ? Math.max(lam.strainShare[p], LIQUID) : 0;
+      const cR = active ? phi : LIQUID;
+      const cD = active ? share[p] * phi : LIQUID;
       const b = 8 * lam.plyGroup[p >> 1];
       gw[b] += a0 * cR;
       gw[b + 1] += a0 * zH * cR;
@@ -443,9 +455,10 @@ export function laminateStep(lam: IncrementalLaminate, held: boolean, heldStrain
     if (!lam.active[p]) continue;
     const o = 6 * (p >> 1);
     const z = g.pointZM[p];
-    const dx = inc[0] + z * inc[3] - lam.freeStrain[3 * p];
-    const dy = inc[1] + z * inc[4] - lam.freeStrain[3 * p + 1];
-    const dxy = inc[2] + z * inc[5] - lam.freeStrain[3 * p + 2];
+    const phi = Math.max(lam.strainShare[p], LIQUID);
+    const dx = phi * (inc[0] + z * inc[3]) - lam.freeStrain[3 * p];
+    const dy = phi * (inc[1] + z * inc[4]) - lam.freeStrain[3 * p + 1];
+    const dxy = phi * (inc[2] + z * inc[5]) - lam.freeStrain[3 * p + 2];
     addProduct(lam.qRelaxed, o, dx, dy, dxy, 1, lam.sigmaRelaxed, 3 * p);
     const qd = lam.qRelaxing;
     const vx = qd[o] * dx + qd[o + 1] * dy + qd[o + 2] * dxy;

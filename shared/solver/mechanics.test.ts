@@ -156,6 +156,66 @@ describe('mechanics bookkeeping', () => {
   });
 });
 
+describe('mechanics: gel inside a step', () => {
+  // By construction: a point gels where α crosses α_gel, not at a step boundary, so a step that contains the
+  // crossing must give what two steps split exactly at the crossing give (T and 1/a linear over the step,
+  // the crossing found linearly in α). Rounding the gel to whole steps made warpage jump with the step size.
+  const n = 2 * CROSS.length;
+  const fill = (x: number) => new Float64Array(n).fill(x);
+  /** Run `through` (one step across gel, or the same split at the crossing), then a common cure and cool. */
+  function run(params: StudyParams, start: { TK: number; alpha: number; tgK?: number }, through: { TK: number; alpha: number; tgK?: number; dtS: number }[]) {
+    const state = createMechanics(params, plyPoints(CROSS));
+    const gt = prepareGlassTransition(params.resin.glassTransition);
+    primeMechanics(state, fill(start.TK), fill(start.alpha), fill(start.tgK ?? glassTransitionK(start.alpha, gt)));
+    drive(state, params, through);
+    const end = through[through.length - 1];
+    const rest = [
+      ...Array.from({ length: 20 }, (_, i) => ({ TK: end.TK, alpha: end.alpha + ((0.9 - end.alpha) * (i + 1)) / 20, dtS: 60 })),
+      ...Array.from({ length: 20 }, (_, i) => ({ TK: end.TK - 5 * (i + 1), alpha: 0.9, dtS: 60 })),
+    ];
+    const last = drive(state, params, rest);
+    demould(state, last.TK, last.alpha, last.tgK);
+    return mechanicsResult(state, params);
+  }
+  function expectSame(a: ReturnType<typeof mechanicsResult>, b: ReturnType<typeof mechanicsResult>) {
+    expect(Math.abs(a.curvature.kx)).toBeGreaterThan(0.01); // something to compare
+    expectClose(a.curvature.kx, b.curvature.kx, 1e-6);
+    expectClose(a.curvature.ky, b.curvature.ky, 1e-6);
+    const scale = Math.max(...b.plyStresses.sigma2Pa.map(Math.abs));
+    for (let p = 0; p < n; p++) {
+      expectClose(a.plyStresses.sigma1Pa[p], b.plyStresses.sigma1Pa[p], 1e-6, 1e-6 * scale);
+      expectClose(a.plyStresses.sigma2Pa[p], b.plyStresses.sigma2Pa[p], 1e-6, 1e-6 * scale);
+    }
+    expectClose(a.springInDeg, b.springInDeg, 1e-6);
+  }
+
+  it('starts a heating tool-held point from the crossing temperature (CHILE)', () => {
+    // α_gel = 0.36 is crossed half-way through a 60 s step from 420 K to 440 K: at 430 K, 30 s in.
+    const ref = referenceStudy();
+    const params = study({ layup: { plies: CROSS }, constraint: 'tool-held' }, { modulus: { ...ref.resin.modulus, model: 'chile' } });
+    const start = { TK: 420, alpha: 0.3 };
+    const one = run(params, start, [{ TK: 440, alpha: 0.42, dtS: 60 }]);
+    const split = run(params, start, [
+      { TK: 430, alpha: 0.36, dtS: 30 },
+      { TK: 440, alpha: 0.42, dtS: 30 },
+    ]);
+    expectSame(one, split);
+  });
+
+  it('relaxes a point only over the part of the step after its gel (Prony)', () => {
+    // Isothermal, Tg held: 1/a is constant, so the reduced time after the crossing is exactly that of the
+    // second half-step; the spectrum's short terms relax appreciably within it (log₁₀ a ≈ −2 at T − Tg = 10 K).
+    const params = study({ layup: { plies: CROSS }, constraint: 'free' });
+    const start = { TK: 440, alpha: 0.3, tgK: 430 };
+    const one = run(params, start, [{ TK: 440, alpha: 0.42, tgK: 430, dtS: 60 }]);
+    const split = run(params, start, [
+      { TK: 440, alpha: 0.36, tgK: 430, dtS: 30 },
+      { TK: 440, alpha: 0.42, tgK: 430, dtS: 30 },
+    ]);
+    expectSame(one, split);
+  });
+});
+
 describe('mechanics: elastic and viscoelastic limits', () => {
   /** Resin that is CHILE and glassy throughout (Tg far above T), already gelled at the start. */
   function glassyChile(layup: Layup) {

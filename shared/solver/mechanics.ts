@@ -212,6 +212,9 @@ export function mechanicsStep(state: MechanicsState, TK: Float64Array, alpha: Fl
   let th2 = 0;
   let ch1 = 0;
   let ch2 = 0;
+  let phi = 1;
+  let anyWasGelled = false;
+  let phiMax = 0;
 
   for (let p = 0; p < points; p++) {
     const T = TK[p];
@@ -237,6 +240,7 @@ export function mechanicsStep(state: MechanicsState, TK: Float64Array, alpha: Fl
     lastPrevA = prevA;
     lastPrevRate = prevRate;
     lastWasGelled = wasGelled;
+    if (wasGelled) anyWasGelled = true;
     const rate = same ? state.prevRate[p - 1] : prony ? reducedTimeRate(resin.shift, T, tg, a) : 1;
     state.prevTK[p] = T;
     state.prevAlpha[p] = a;
@@ -256,9 +260,15 @@ export function mechanicsStep(state: MechanicsState, TK: Float64Array, alpha: Fl
       lam.sg.copyWithin(termBase, termBase - terms, termBase);
       state.prevShrink[p] = state.prevShrink[p - 1];
     } else {
+      // A point that gels in this step does so where α crosses α_gel, found by linear interpolation in α
+      // (T and 1/a are linear in time over the step, like the strain): it carries stress, relaxes and takes
+      // up strain only over the part φ of the step after the crossing, and its stress-free state is the
+      // crossing's temperature. Rounding the crossing to whole steps made warpage jump with the step size.
+      phi = justGelled && a > prevA ? Math.min(1, (a - state.gelPoint) / (a - prevA)) : 1;
       let shareSum = 0;
       if (prony) {
-        relaxationFactors(reducedTimeIncrement(dtS, prevRate, rate), resin.timesS, lam.e, lam.sg, termBase);
+        const rateFrom = rate + phi * (prevRate - rate);
+        relaxationFactors(reducedTimeIncrement(phi * dtS, rateFrom, rate), resin.timesS, lam.e, lam.sg, termBase);
         for (let i = 0; i < terms; i++) {
           lam.sg[termBase + i] *= resin.weights[i];
           shareSum += lam.sg[termBase + i];
@@ -270,9 +280,9 @@ export function mechanicsStep(state: MechanicsState, TK: Float64Array, alpha: Fl
         lam.sg[termBase] = shareSum;
       }
       // Free strain with the resin's effective modulus over the step; a point that gels in this step starts
-      // from the gel point and this step's temperature.
+      // from the gel point and the temperature at the crossing.
       freeStrainCoefficients(state.fibre, resin.relaxedPa + shareSum * range, state.resinNu, state.resinCtePerK, state.fibreVolumeFraction, coeff);
-      const dT = justGelled ? 0 : T - prevT;
+      const dT = phi * (T - prevT);
       const fromShrink = justGelled ? resinShrinkageStrain(state.gelPoint, state.shrinkage) : state.prevShrink[p];
       const shrink = a === prevA && !justGelled ? fromShrink : resinShrinkageStrain(a, state.shrinkage);
       state.prevShrink[p] = shrink;
@@ -281,6 +291,8 @@ export function mechanicsStep(state: MechanicsState, TK: Float64Array, alpha: Fl
       ch1 = coeff[2] * (shrink - fromShrink);
       ch2 = coeff[3] * (shrink - fromShrink);
     }
+    lam.strainShare[p] = phi;
+    if (phi > phiMax) phiMax = phi;
     state.thermalSinceGel[2 * p] += th1;
     state.thermalSinceGel[2 * p + 1] += th2;
     state.chemicalSinceGel[2 * p] += ch1;
@@ -291,6 +303,13 @@ export function mechanicsStep(state: MechanicsState, TK: Float64Array, alpha: Fl
 
   // Held on the tool: the part's mid-plane follows the tool surface, whose temperature is the bottom face's.
   const held = state.held && !state.released;
+  // The laminate's strain is taken linear in time over the part of the step in which it has any stiffness:
+  // the whole step when held or when some point was gelled at its start; from the first crossing when a free
+  // laminate gels in this step (before it, nothing resists or drives a deformation). Each point takes up
+  // the share of that strain after its own crossing.
+  if (!held && !anyWasGelled && phiMax > 0 && phiMax < 1) {
+    for (let p = 0; p < points; p++) if (lam.active[p]) lam.strainShare[p] /= phiMax;
+  }
   laminateStep(lam, held, held ? state.toolCtePerK * (TK[0] - toolPrevK) : 0);
   const m = state.midPoint;
   state.midTgK = tgK[m];

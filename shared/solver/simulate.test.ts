@@ -261,6 +261,50 @@ describe('simulate: step-size convergence', () => {
   });
 });
 
+describe('simulate: warpage against the step and the inputs', () => {
+  // Convergence/smoothness checks by construction (common practice, no source): a result must not depend on
+  // where the step boundaries fall. In the reference study the gel front crosses the laminate near the end of
+  // the second ramp, while the tool still heats; rounding each point's gel to whole steps made the warpage
+  // jump by up to ±10 % with the step limits and by several per cent for a 0.01 °C/min change of a ramp rate.
+  const scaled = (f: number) => ({ maxAirChangeK: 1 * f, maxCureChange: 0.005 * f, maxPartChangeK: 2 * f, maxStepS: 60 * f });
+
+  it('warpage and κx at step factors 1, ½ and ¼ agree with ⅛ within 2 %', () => {
+    const p = referenceStudy();
+    const finest = simulate(p, { stepLimits: scaled(0.125) });
+    expect(finest.summary.warpageMm).toBeGreaterThan(0.01); // a warpage worth comparing
+    for (const f of [1, 0.5, 0.25]) {
+      const r = simulate(p, { stepLimits: scaled(f) });
+      expect(Math.abs(r.summary.warpageMm / finest.summary.warpageMm - 1), `warpage at factor ${f}`).toBeLessThan(0.02);
+      expect(Math.abs(r.curvature.kx / finest.curvature.kx - 1), `κx at factor ${f}`).toBeLessThan(0.02);
+    }
+  });
+
+  /** Warpage for ten nudges of one segment's rate by 0.01 °C/min, default step limits. */
+  const nudged = (segment: number) =>
+    Array.from({ length: 11 }, (_, i) => {
+      const ref = structuredClone(referenceStudy());
+      const seg = ref.cycle.kind === 'segments' ? ref.cycle.segments[segment] : undefined;
+      if (!seg || seg.kind === 'hold') throw new Error(`segment ${segment} has no rate`);
+      seg.rateCPerMin += 0.01 * i;
+      return simulate(parseStudy(ref)).summary.warpageMm;
+    });
+
+  it('moves warpage by no more than 0.5 % for each 0.01 °C/min nudge of the first ramp', () => {
+    // Gel happens long after the first ramp: its rate barely matters, so any jump is a step artefact.
+    const w = nudged(0);
+    for (let i = 1; i < w.length; i++) expect(Math.abs(w[i] / w[i - 1] - 1), `nudge ${i}`).toBeLessThan(0.005);
+  });
+
+  it('moves warpage steadily as the ramp the part gels in is nudged', () => {
+    // The second ramp's rate sets how far the tool heats after the gel front: warpage really moves with it
+    // (about 0.7 % per 0.01 °C/min here), but steadily: consecutive changes differ by less than 0.1 %.
+    const w = nudged(2);
+    const d = w.slice(1).map((x, i) => x / w[i] - 1);
+    expect(Math.max(...d.map(Math.abs))).toBeGreaterThan(0.001); // the input matters…
+    for (let i = 1; i < d.length; i++) expect(Math.abs(d[i] - d[i - 1]), `nudge ${i + 1}`).toBeLessThan(0.001); // …smoothly
+  });
+});
+
 describe('simulate: preview limits', () => {
   it('take about half the steps and stay close to the default solution', () => {
     const p = referenceStudy();
