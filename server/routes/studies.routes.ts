@@ -29,8 +29,10 @@ export function studyRoutes(sequelize: Sequelize): Router {
 
   router.get('/studies/:studyId', canRead, async (req, res) => {
     const id = idParam(req.params.studyId)!;
-    const detail = await studyDetailCache.getOrLoad(id, () => studyDetail(id));
-    res.json({ ...(detail as object), role: req.teamAccess!.role });
+    // Kept serialised: turning the params into JSON on every read was the largest cost of a warm read
+    // (profiled at 64 connections); only the caller's role is added per request.
+    const json = await studyDetailCache.getOrLoad(id, async () => JSON.stringify(await studyDetail(id)));
+    res.type('application/json').send(`{"role":${JSON.stringify(req.teamAccess!.role)},${json.slice(1)}`);
   });
 
   router.get('/studies/:studyId/revisions', canRead, async (req, res) => {

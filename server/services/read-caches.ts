@@ -12,7 +12,8 @@ export const userCache = ttlCache<number, User | null>(5_000);
 /** A study's or part's team never changes. */
 export const studyTeamCache = ttlCache<number, number | null>(60 * 60_000);
 export const partTeamCache = ttlCache<number, number | null>(60 * 60_000);
-export const studyDetailCache = ttlCache<number, unknown>(30_000);
+/** GET /api/studies/:id's body (without the caller's role), as JSON text. */
+export const studyDetailCache = ttlCache<number, string>(30_000);
 
 export const roleKey = (userId: number, teamId: number) => `${userId}:${teamId}`;
 
