@@ -59,9 +59,10 @@ export interface MechanicsState {
   held: boolean;
   toolCtePerK: number;
   released: boolean;
-  /** values at the end of the previous step, per point */
+  /** values at the end of the previous step, per point (T, α and Tg also give the mid-plane's resin modulus) */
   prevTK: Float64Array;
   prevAlpha: Float64Array;
+  prevTgK: Float64Array;
   /** dξ/dt = 1/a at the end of the previous step */
   prevRate: Float64Array;
   /** the resin's linear shrinkage strain at the end of the previous step (kept from gel on) */
@@ -72,9 +73,12 @@ export interface MechanicsState {
   chemicalSinceGel: Float64Array;
   /** index of the point nearest the mid-plane */
   midPoint: number;
-  /** Tg at the mid-plane point at the end of the last step (T and α are in prevTK, prevAlpha) */
-  midTgK: number;
   coeff: Float64Array;
+  /** scratch for a step that a gel crossing splits: crossing fractions and the point values at a split */
+  crossings: Float64Array;
+  splitTK: Float64Array;
+  splitAlpha: Float64Array;
+  splitTgK: Float64Array;
 }
 
 function fibreSI(f: StudyParams['fibre']): FibreSI {
@@ -154,14 +158,18 @@ export function createMechanics(params: MechanicsInput, plyPointZM: Float64Array
     released: false,
     prevTK: new Float64Array(points),
     prevAlpha: new Float64Array(points),
+    prevTgK: new Float64Array(points).fill(tg0),
     prevRate: new Float64Array(points),
     prevShrink: new Float64Array(points),
     gelled: new Uint8Array(points),
     thermalSinceGel: new Float64Array(2 * points),
     chemicalSinceGel: new Float64Array(2 * points),
     midPoint,
-    midTgK: tg0,
     coeff: new Float64Array(4),
+    crossings: new Float64Array(points),
+    splitTK: new Float64Array(points),
+    splitAlpha: new Float64Array(points),
+    splitTgK: new Float64Array(points),
   };
   state.prevTK.fill(t0);
   state.prevRate.fill(reducedTimeRate(resin.shift, t0, tg0, 0));
@@ -176,11 +184,11 @@ export function primeMechanics(state: MechanicsState, TK: Float64Array, alpha: F
   for (let p = 0; p < state.prevTK.length; p++) {
     state.prevTK[p] = TK[p];
     state.prevAlpha[p] = alpha[p];
+    state.prevTgK[p] = tgK[p];
     state.prevRate[p] = reducedTimeRate(state.resin.shift, TK[p], tgK[p], alpha[p]);
     state.prevShrink[p] = resinShrinkageStrain(alpha[p], state.shrinkage);
     state.gelled[p] = alpha[p] >= state.gelPoint ? 1 : 0;
   }
-  state.midTgK = tgK[state.midPoint];
 }
 
 function checkInputs(state: MechanicsState, TK: Float64Array, alpha: Float64Array, tgK: Float64Array, dtS: number): void {
@@ -191,9 +199,58 @@ function checkInputs(state: MechanicsState, TK: Float64Array, alpha: Float64Arra
   if (!(dtS >= 0 && dtS < Infinity)) throw new RangeError(`mechanicsStep: time step ${dtS} s is out of range: allowed ≥ 0 and finite`);
 }
 
-/** Advance the ply stresses and the laminate over one step of dtS ending at the given point values. */
+/**
+ * Advance the ply stresses and the laminate over one step of dtS ending at the given point values.
+ *
+ * Where points gel inside the step, the step is split at each crossing (T, α and Tg linear in time over the
+ * step, the crossing found linearly in α): which points carry stress changes only at a split, so the strain
+ * the laminate takes up between splits is linear in time, as the recursive update assumes. A free laminate
+ * whose first points gel is very compliant, and whatever bends it in that short spell is locked in by the
+ * points that gel later; rounding the crossings to whole steps made the warpage jump with the step size.
+ */
 export function mechanicsStep(state: MechanicsState, TK: Float64Array, alpha: Float64Array, tgK: Float64Array, dtS: number): void {
   checkInputs(state, TK, alpha, tgK, dtS);
+  const points = state.prevTK.length;
+  const gel = state.gelPoint;
+  const cross = state.crossings;
+  let count = 0;
+  for (let p = 0; p < points; p++) {
+    const prevA = state.prevAlpha[p];
+    if (!state.gelled[p] && alpha[p] >= gel && alpha[p] > prevA) {
+      const s = (gel - prevA) / (alpha[p] - prevA);
+      if (s > 0 && s < 1) cross[count++] = s;
+    }
+  }
+  if (count > 0) {
+    const fractions = cross.subarray(0, count).sort();
+    const { splitTK, splitAlpha, splitTgK } = state;
+    let done = 0;
+    for (let i = 0; i < count; i++) {
+      const s = fractions[i];
+      if (s <= done) continue; // the same crossing twice
+      // Fractions of what is left of the step, since each split moves the start (prevTK, prevAlpha) on.
+      const f = (s - done) / (1 - done);
+      for (let p = 0; p < points; p++) {
+        const a0 = state.prevAlpha[p];
+        splitTK[p] = state.prevTK[p] + f * (TK[p] - state.prevTK[p]);
+        splitAlpha[p] = a0 + f * (alpha[p] - a0);
+        splitTgK[p] = state.prevTgK[p] + f * (tgK[p] - state.prevTgK[p]);
+        // A point crossing exactly here gels at the split, not a rounding error before it.
+        if (!state.gelled[p] && alpha[p] >= gel && alpha[p] > a0 && (gel - a0) / (alpha[p] - a0) <= f * (1 + 1e-12)) {
+          splitAlpha[p] = Math.max(splitAlpha[p], gel);
+        }
+      }
+      advanceStep(state, splitTK, splitAlpha, splitTgK, dtS * (s - done));
+      done = s;
+    }
+    advanceStep(state, TK, alpha, tgK, dtS * (1 - done));
+    return;
+  }
+  advanceStep(state, TK, alpha, tgK, dtS);
+}
+
+/** One step, or the part of a step between two gel crossings (mechanicsStep splits the step). */
+function advanceStep(state: MechanicsState, TK: Float64Array, alpha: Float64Array, tgK: Float64Array, dtS: number): void {
   const lam = state.laminate;
   const resin = state.resin;
   const terms = lam.termCount;
@@ -213,8 +270,6 @@ export function mechanicsStep(state: MechanicsState, TK: Float64Array, alpha: Fl
   let ch1 = 0;
   let ch2 = 0;
   let phi = 1;
-  let anyWasGelled = false;
-  let phiMax = 0;
 
   for (let p = 0; p < points; p++) {
     const T = TK[p];
@@ -240,10 +295,10 @@ export function mechanicsStep(state: MechanicsState, TK: Float64Array, alpha: Fl
     lastPrevA = prevA;
     lastPrevRate = prevRate;
     lastWasGelled = wasGelled;
-    if (wasGelled) anyWasGelled = true;
     const rate = same ? state.prevRate[p - 1] : prony ? reducedTimeRate(resin.shift, T, tg, a) : 1;
     state.prevTK[p] = T;
     state.prevAlpha[p] = a;
+    state.prevTgK[p] = tg;
     state.prevRate[p] = rate;
     const justGelled = !wasGelled && a >= state.gelPoint;
     if (justGelled) state.gelled[p] = 1;
@@ -263,7 +318,8 @@ export function mechanicsStep(state: MechanicsState, TK: Float64Array, alpha: Fl
       // A point that gels in this step does so where α crosses α_gel, found by linear interpolation in α
       // (T and 1/a are linear in time over the step, like the strain): it carries stress, relaxes and takes
       // up strain only over the part φ of the step after the crossing, and its stress-free state is the
-      // crossing's temperature. Rounding the crossing to whole steps made warpage jump with the step size.
+      // crossing's temperature. mechanicsStep splits a step at its crossings, so there φ is 0 (the point gels
+      // at the end of a part step) or 1; the general form keeps a direct call right too.
       phi = justGelled && a > prevA ? Math.min(1, (a - state.gelPoint) / (a - prevA)) : 1;
       let shareSum = 0;
       if (prony) {
@@ -292,7 +348,6 @@ export function mechanicsStep(state: MechanicsState, TK: Float64Array, alpha: Fl
       ch2 = coeff[3] * (shrink - fromShrink);
     }
     lam.strainShare[p] = phi;
-    if (phi > phiMax) phiMax = phi;
     state.thermalSinceGel[2 * p] += th1;
     state.thermalSinceGel[2 * p + 1] += th2;
     state.chemicalSinceGel[2 * p] += ch1;
@@ -303,16 +358,7 @@ export function mechanicsStep(state: MechanicsState, TK: Float64Array, alpha: Fl
 
   // Held on the tool: the part's mid-plane follows the tool surface, whose temperature is the bottom face's.
   const held = state.held && !state.released;
-  // The laminate's strain is taken linear in time over the part of the step in which it has any stiffness:
-  // the whole step when held or when some point was gelled at its start; from the first crossing when a free
-  // laminate gels in this step (before it, nothing resists or drives a deformation). Each point takes up
-  // the share of that strain after its own crossing.
-  if (!held && !anyWasGelled && phiMax > 0 && phiMax < 1) {
-    for (let p = 0; p < points; p++) if (lam.active[p]) lam.strainShare[p] /= phiMax;
-  }
   laminateStep(lam, held, held ? state.toolCtePerK * (TK[0] - toolPrevK) : 0);
-  const m = state.midPoint;
-  state.midTgK = tgK[m];
 }
 
 /**
@@ -424,6 +470,6 @@ export function mechanicsResult(state: MechanicsState, params: Pick<StudyParams,
     curvature: { kx, ky, kxy },
     warpageMm: Math.abs(mToMm(stripWarpageM(kx, mmToM(params.geometry.stripSpanMm)))),
     springInDeg: springInFromHistory(state, params.geometry.cornerAngleDeg),
-    resinModulusMidPa: apparentResinModulusPa(state.resin, state.gelPoint, state.prevTK[state.midPoint], state.prevAlpha[state.midPoint], state.midTgK),
+    resinModulusMidPa: apparentResinModulusPa(state.resin, state.gelPoint, state.prevTK[state.midPoint], state.prevAlpha[state.midPoint], state.prevTgK[state.midPoint]),
   };
 }
