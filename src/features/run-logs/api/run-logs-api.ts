@@ -1,5 +1,5 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { api, ApiError, setCsrfToken } from '../../../lib/api-client';
+import { api, ApiError, csrfTokenForWrite } from '../../../lib/api-client';
 import type { RunLogInspection, RunLogMapping, RunLogRecord } from '../../../../shared/run-log/index';
 
 // Every run-log endpoint the client uses: fetchers, their query options (one source of key + fetcher) and
@@ -82,12 +82,6 @@ export const useStudyRole = (studyId: string) => useQuery(studyRoleQuery(studyId
 export const usePartRunLogs = (partId: string) => useQuery(partRunLogsQuery(partId));
 export const useRunLog = (id: string) => useQuery(runLogQuery(id));
 
-async function freshCsrf(): Promise<string> {
-  const { csrfToken } = await api.get<{ csrfToken: string }>('/auth/csrf');
-  setCsrfToken(csrfToken);
-  return csrfToken;
-}
-
 const HEAD_BYTES = 1024 * 1024;
 const TAIL_BYTES = 64 * 1024;
 
@@ -108,7 +102,6 @@ export async function inspectRunLogLocally(file: File): Promise<RunLogInspection
 
 /** Sends the file to be read by the server (nothing is stored) and returns the proposed mapping and a preview. */
 export async function inspectRunLogFile(studyId: string, file: File): Promise<RunLogInspection> {
-  await freshCsrf();
   const form = new FormData();
   form.append('file', file);
   return api.post<RunLogInspection>(`/studies/${encodeURIComponent(studyId)}/run-logs/inspect`, form);
@@ -116,7 +109,8 @@ export async function inspectRunLogFile(studyId: string, file: File): Promise<Ru
 
 /** Uploads the file with the confirmed mapping; `onProgress` gets the share of bytes sent (0..1). */
 export async function uploadRunLog(studyId: string, file: File, mapping: RunLogMapping, onProgress: (fraction: number) => void): Promise<RunLogDetail> {
-  const csrf = await freshCsrf();
+  // sent outside apiRequest for its upload progress, so it takes the token from the one place that keeps it
+  const csrf = await csrfTokenForWrite();
   const form = new FormData();
   form.append('mapping', JSON.stringify(mapping));
   form.append('file', file);
@@ -148,7 +142,6 @@ export function useDecideReview(runLogId: string) {
   const client = useQueryClient();
   return useMutation({
     mutationFn: async (body: { decision: ReviewDecision; rationale: string }) => {
-      await freshCsrf();
       return api.post<ReviewView>(`/run-logs/${encodeURIComponent(runLogId)}/review`, body);
     },
     onSuccess: () => client.invalidateQueries({ queryKey: runLogKeys.all }),
