@@ -1,6 +1,6 @@
 import { createHash } from 'node:crypto';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
-import { call, resetToDemo, signIn, startHarness, type Harness, type SignedIn } from '../test/harness';
+import { call, resetToDemoTeam, signIn, startHarness, type Harness, type SignedIn } from '../test/harness';
 import { demoRunLogCsv, inspectRunLog, type RunLogRecord } from '../../shared/run-log/index';
 import { parseStudy } from '../../shared/schemas/index';
 import { UploadChunk, CHUNK_BYTES } from '../models/upload-chunk.model';
@@ -27,13 +27,8 @@ beforeAll(async () => {
 afterAll(() => h.close());
 
 beforeEach(async () => {
-  await resetToDemo(h.db);
-  engineer = await signIn(h, 'tomas.reed');
-  lead = await signIn(h, 'amara.okafor');
-  viewer = await signIn(h, 'ines.varga');
-  const study = (await h.db.models.Study.findOne({ where: { title: 'Two-dwell cycle for the 24-ply panel' } }))!;
-  studyId = study.id;
-  partId = study.partId;
+  let study;
+  ({ engineer, lead, viewer, study, studyId, partId } = await resetToDemoTeam(h));
   const latest = (await h.db.models.Revision.findOne({ where: { studyId, number: study.latestRevisionNumber } }))!;
   // the run followed the study's latest cycle, except for the second hold (the demo's excursion)
   demoCsv = demoRunLogCsv(parseStudy(latest.params), { start: '2026-04-02T07:10:00' });

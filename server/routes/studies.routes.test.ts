@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
-import { call, resetToDemo, signIn, startHarness, type Harness, type SignedIn } from '../test/harness';
+import { call, resetToDemoTeam, startHarness, type Harness, type SignedIn } from '../test/harness';
 import { referenceStudy } from '../../shared/solver/demo-cards';
 import type { StudyParams } from '../../shared/schemas/index';
 
@@ -25,13 +25,7 @@ beforeAll(async () => {
 afterAll(() => h.close());
 
 beforeEach(async () => {
-  await resetToDemo(h.db);
-  engineer = await signIn(h, 'tomas.reed');
-  lead = await signIn(h, 'amara.okafor');
-  viewer = await signIn(h, 'ines.varga');
-  const study = (await h.db.models.Study.findOne({ where: { title: 'Two-dwell cycle for the 24-ply panel' } }))!;
-  studyId = study.id;
-  partId = study.partId;
+  ({ engineer, lead, viewer, studyId, partId } = await resetToDemoTeam(h));
 });
 
 const revisionCount = () => h.db.models.Revision.count({ where: { studyId } });

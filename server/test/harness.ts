@@ -66,6 +66,17 @@ export async function resetToDemo(db: TestDb) {
   await seedDemo(db.sequelize, db.models, { summarize: cachedSummary });
 }
 
+/**
+ * The demo team signed in after a reset: engineer, lead and viewer, and the lead's seeded
+ * two-dwell study (revisions 1–2) with its part.
+ */
+export async function resetToDemoTeam(h: Harness) {
+  await resetToDemo(h.db);
+  const [engineer, lead, viewer] = [await signIn(h, 'tomas.reed'), await signIn(h, 'amara.okafor'), await signIn(h, 'ines.varga')];
+  const study = (await h.db.models.Study.findOne({ where: { title: 'Two-dwell cycle for the 24-ply panel' } }))!;
+  return { engineer, lead, viewer, study, studyId: study.id as number, partId: study.partId as number };
+}
+
 export interface SignedIn {
   agent: Agent;
   csrf: string;
