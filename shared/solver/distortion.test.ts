@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { expectClose } from './test-support/expect-close';
 import { laminateCte, radfordDiefendorfSpringInDeg, springInDeg, stripWarpageM, type ThroughThicknessPly } from './distortion';
 
-// Hyer (1998) property set (physics.md §8) with ν23 = 0.45 (our choice for the through-thickness check).
+// Hyer (1998) property set with ν23 = 0.45 (our choice for the through-thickness check).
 const ply = (angleDeg: number): ThroughThicknessPly => ({
   angleDeg,
   thicknessM: 0.15e-3,
@@ -18,7 +18,7 @@ const A2 = 24.3e-6;
 describe('spring-in', () => {
   it('gives the Radford–Diefendorf values without and with shrinkage', () => {
     // θ 90°, α_I 2e-6, α_T 30e-6 /K, ΔT −150 K: 0.3797°; with φ_I −1e-4, φ_T −5e-3: 0.8229°
-    // (Radford & Diefendorf 1993 formula; physics.md §8). Tolerance: half a unit in the printed digit.
+    // (Radford & Diefendorf 1993 formula). Tolerance: half a unit in the printed digit.
     expectClose(radfordDiefendorfSpringInDeg(90, 2e-6, 30e-6, -150, 0, 0), 0.3797, 0, 5e-5);
     expectClose(radfordDiefendorfSpringInDeg(90, 2e-6, 30e-6, -150, -1e-4, -5e-3), 0.8229, 0, 5e-5);
   });
@@ -42,7 +42,7 @@ describe('warpage', () => {
 
 describe('laminate effective CTE', () => {
   it('is the ply CTE along and across the fibres for a unidirectional laminate', () => {
-    // Nothing constrains a unidirectional laminate's free expansion: α_I = α1 and α_T = α3 = α2 (physics.md §6.3).
+    // Nothing constrains a unidirectional laminate's free expansion: α_I = α1 and α_T = α3 = α2.
     const cte = laminateCte([ply(0), ply(0), ply(0)], A1, A2);
     expectClose(cte.inPlane[0], A1, 1e-9);
     expectClose(cte.inPlane[1], A2, 1e-9);
@@ -53,7 +53,7 @@ describe('laminate effective CTE', () => {
     // [0/90]S with equal plies: εx = εy = ε, and Nx = 0 gives
     // ε = (Q11 α1 + Q12 (α1 + α2) + Q22 α2) / (Q11 + 2 Q12 + Q22) (derived by hand from CLT, Hyer 1998 set);
     // each ply then carries σ1 = Q11(ε − α1) + Q12(ε − α2), σ2 = Q12(ε − α1) + Q22(ε − α2) in its own axes, and
-    // ε3 = α2 − (ν13/E1) σ1 − (ν23/E2) σ2 with ν13 = ν12 (physics.md §6.3).
+    // ε3 = α2 − (ν13/E1) σ1 − (ν23/E2) σ2 with ν13 = ν12.
     const p = ply(0);
     const d = 1 - (p.nu12 * p.nu12 * p.e2Pa) / p.e1Pa;
     const Q11 = p.e1Pa / d;

@@ -1,7 +1,7 @@
 // Part distortion from the laminate state (SI): strip warpage from curvature, corner spring-in by the
 // Radford–Diefendorf formula, and the laminate's effective in-plane and through-thickness free strains
 // (CTEs when the ply free strains are per kelvin) that the formula needs.
-// Through-thickness ply properties follow physics.md §6.3: α3 = α2 (and the chemical strain alike), ν13 = ν12.
+// Through-thickness ply properties follow the usual transversely isotropic assumption: α3 = α2 (and the chemical strain alike), ν13 = ν12.
 
 import { elasticFreeResponse, laminateGeometry, plyFreeStrainToLaminate, rotateStiffness, stressToPlyAxes } from './laminate';
 

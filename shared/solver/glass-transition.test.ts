@@ -7,7 +7,7 @@ const g = prepareGlassTransition({ tg0C: -20, tgInfC: 220, lambda: 0.5 });
 
 describe('DiBenedetto glass transition', () => {
   it('Tg0 −20 °C, Tg∞ 220 °C, λ 0.5: Tg = 60.000, 140.000, 176.364 °C at α = 0.5, 0.8, 0.9', () => {
-    // closed form, DiBenedetto in the Pascault–Williams form (physics.md §8; Pascault & Williams 1990)
+    // closed form, DiBenedetto in the Pascault–Williams form (Pascault & Williams 1990)
     expectClose(glassTransitionK(0.5, g) - C0, 60.0, 0, 5e-4);
     expectClose(glassTransitionK(0.8, g) - C0, 140.0, 0, 5e-4);
     expectClose(glassTransitionK(0.9, g) - C0, 176.364, 0, 5e-4);
@@ -22,14 +22,14 @@ describe('DiBenedetto glass transition', () => {
   });
 
   it('alphaAtGlassTransition inverts Tg(α)', () => {
-    // the inverse of the same closed form; at 140 °C the resin vitrifies at α = 0.8 (physics.md §8 row)
+    // the inverse of the same closed form; at 140 °C the resin vitrifies at α = 0.8 (closed form)
     expectClose(alphaAtGlassTransition(140 + C0, g), 0.8, 1e-9);
     expect(alphaAtGlassTransition(-30 + C0, g)).toBe(0);
     expect(alphaAtGlassTransition(250 + C0, g)).toBe(1);
   });
 
   it('gel and vitrification states follow the gel point and T < Tg(α)', () => {
-    // physics.md §4: gelled at α_gel; vitrified when T < Tg(α)
+    // Gelled at α_gel; vitrified when T < Tg(α)
     expect(isGelled(0.49, 0.5)).toBe(false);
     expect(isGelled(0.5, 0.5)).toBe(true);
     expect(isVitrified(100 + C0, 140 + C0)).toBe(true);

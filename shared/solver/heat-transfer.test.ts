@@ -26,7 +26,7 @@ function run(col: HeatColumn, T0: number, airK: (tS: number) => number, endS: nu
 
 describe('ply thermal properties', () => {
   it('transverse conductivity: equal constituents give the constituent, and a hand-evaluated case', () => {
-    // Halpin–Tsai-type form of physics.md §3 (from memory); 0.2·(10.2 + 9.8·0.6)/(10.2 − 9.8·0.6) evaluated by hand
+    // Halpin–Tsai-type form (Halpin & Kardos 1976, from memory); 0.2·(10.2 + 9.8·0.6)/(10.2 − 9.8·0.6) evaluated by hand
     expectClose(transverseConductivity(0.3, 0.3, 0.6), 0.3, 1e-12);
     expectClose(transverseConductivity(10, 0.2, 0.6), 0.744444, 1e-6);
   });
@@ -148,7 +148,7 @@ describe('time-step order and conservation', () => {
   });
 
   it('stored heat change equals the heat in through the faces', () => {
-    // conservation of energy in the discrete balance (physics.md §3)
+    // conservation of energy in the discrete balance (first law)
     for (const theta of [0.5, 1]) {
       let heatIn = 0;
       const T = run(col, 300, air, 1200, 20, theta, (_T, _t, q) => {

@@ -1,4 +1,4 @@
-// Through-thickness heat conduction in one column (laminate, optionally on a tool plate), physics.md §3:
+// Through-thickness heat conduction in one column (laminate, optionally on a tool plate):
 //   ρc ∂T/∂t = ∂/∂z (k ∂T/∂z) + q,   −k ∂T/∂z = h (T − T_air) on both outer faces, perfect contact inside.
 // Vertex-centred finite volumes: nodes sit on both outer faces and on every layer interface, so the surface
 // temperatures and the ply top/bottom values the mechanics needs are nodes, not interpolations. Time stepping is
@@ -7,7 +7,7 @@
 
 /**
  * Transverse conductivity of a unidirectional ply from its constituents, Halpin–Tsai-type form with ξ = 1
- * (physics.md §3; Halpin & Kardos 1976, from memory):
+ * (Halpin & Kardos 1976, from memory):
  *   k_z = k_r (k_f + k_r + (k_f − k_r) V_f) / (k_f + k_r − (k_f − k_r) V_f)
  */
 export function transverseConductivity(fibreTransverseWPerMK: number, resinWPerMK: number, fibreVolumeFraction: number): number {

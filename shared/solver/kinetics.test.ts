@@ -9,7 +9,7 @@ import { expectClose } from './test-support/expect-close';
 
 const C0 = 273.15;
 
-// Published constants of Lee, Loos & Springer, J. Compos. Mater. 16 (1982), per minute (physics.md §2).
+// Published constants of Lee, Loos & Springer, J. Compos. Mater. 16 (1982), per minute.
 const leeLoosSpringer: KineticsInput = {
   kinetics: {
     form: 'lee-loos-springer',
@@ -29,19 +29,19 @@ function march(k: ReturnType<typeof prepareKinetics>, alpha0: number, tempK: (tS
 
 describe('closed-form kinetics', () => {
   it('first order, k = 0.05, t = 20: α = 1 − e^(−kt) = 0.632121', () => {
-    // closed form (physics.md §8)
+    // closed form
     const k = prepareKinetics({ kinetics: { form: 'nth-order', aPerS: 0.05, eJPerMol: 0, n: 1 } });
     expectClose(advanceCure(k, 0, 300, 20), 0.632121, 0, 1e-6);
   });
 
   it('nth order n = 1.5, k = 0.05, t = 20: α = 1 − (1 + (n−1)kt)^(−1/(n−1)) = 0.555556', () => {
-    // closed form (physics.md §8)
+    // closed form
     const k = prepareKinetics({ kinetics: { form: 'nth-order', aPerS: 0.05, eJPerMol: 0, n: 1.5 } });
     expectClose(advanceCure(k, 0, 300, 20), 0.555556, 0, 1e-6);
   });
 
   it('autocatalytic m = n = 1, α0 = 0.01, k = 0.05, t = 20: logistic α = 0.026724', () => {
-    // closed form, logistic α/(1−α) = α0/(1−α0)·e^(kt) (physics.md §8)
+    // closed form, logistic α/(1−α) = α0/(1−α0)·e^(kt)
     const k = prepareKinetics({
       kinetics: { form: 'kamal-sourour', a1PerS: 0, e1JPerMol: 0, a2PerS: 0.05, e2JPerMol: 0, m: 1, n: 1 },
     });
@@ -49,7 +49,7 @@ describe('closed-form kinetics', () => {
   });
 
   it('a pure autocatalytic law starts from the 1e-6 seed', () => {
-    // physics.md §2: "a pure α^m law needs a small seed α0 (1e-6)"
+    // a pure α^m law needs a small seed α0 (1e-6): shared/solver/README.md, "Cure kinetics"
     const k = prepareKinetics({
       kinetics: { form: 'kamal-sourour', a1PerS: 0, e1JPerMol: 0, a2PerS: 0.05, e2JPerMol: 0, m: 1, n: 1 },
     });
@@ -68,7 +68,7 @@ describe('Lee–Loos–Springer', () => {
   const k = prepareKinetics(leeLoosSpringer);
 
   it('isothermal 177 °C from α = 0 gives 0.3900, 0.5320, 0.8379, 0.9669, 0.9986 at 5, 10, 30, 60, 120 min', () => {
-    // computed with SciPy LSODA, rtol 1e-10 (physics.md §8); values rounded to 4 decimals
+    // computed with SciPy LSODA, rtol 1e-10, from the constants of Lee, Loos & Springer 1982; values rounded to 4 decimals
     const times = [5, 10, 30, 60, 120];
     const expected = [0.39, 0.532, 0.8379, 0.9669, 0.9986];
     let alpha = 0;
@@ -83,7 +83,7 @@ describe('Lee–Loos–Springer', () => {
   });
 
   it('two-dwell cycle (25 °C, 2.5 °C/min → 116 °C, 60 min, 2.5 °C/min → 177 °C, 120 min) matches the reference', () => {
-    // computed with SciPy LSODA, rtol 1e-10 (physics.md §8); a thin part follows the air
+    // computed with SciPy LSODA, rtol 1e-10, from the constants of Lee, Loos & Springer 1982; a thin part follows the air
     const airC = (tMin: number) =>
       tMin <= 36.4 ? 25 + 2.5 * tMin : tMin <= 96.4 ? 116 : tMin <= 120.8 ? 116 + 2.5 * (tMin - 96.4) : 177;
     const tempK = (tS: number) => airC(tS / 60) + C0;
@@ -99,7 +99,7 @@ describe('Lee–Loos–Springer', () => {
   });
 
   it('above α = 0.3 the half-life at 177 °C is ln 2 / K3 = 13.08 min', () => {
-    // closed form 1 − α = (1 − α0) e^(−K3 t) (physics.md §8)
+    // closed form 1 − α = (1 − α0) e^(−K3 t)
     const alpha0 = 0.5;
     const alpha = advanceCure(k, alpha0, 177 + C0, 13.08 * 60);
     expectClose((1 - alpha) / (1 - alpha0), 0.5, 2e-4);
@@ -116,7 +116,7 @@ describe('Lee–Loos–Springer', () => {
     let sum = inv(0) + inv(0.3);
     for (let i = 1; i < n; i++) sum += (i % 2 ? 4 : 2) * inv((0.3 * i) / n);
     const tSwitch = (sum * 0.3) / n / 3;
-    // the rate jumps by about ×3 at 116 °C (physics.md §2)
+    // the rate jumps by about ×3 at 116 °C (Lee, Loos & Springer 1982 constants)
     expect(cureRate(k, 0.3, T) / ((K1 + 0.3 * K2) * 0.7 * 0.17)).toBeGreaterThan(2.5);
     const after = 1800;
     const exact = 1 - 0.7 * Math.exp(-K3 * after);
@@ -127,7 +127,7 @@ describe('Lee–Loos–Springer', () => {
 });
 
 describe('cross-check against an independent extrapolation integrator (odex: Gragg–Bulirsch–Stoer)', () => {
-  // The reference right-hand sides are written out again here from physics.md §2, not taken from kinetics.ts.
+  // The reference right-hand sides are written out again here from the published forms, not taken from kinetics.ts.
   const R = 8.314;
   const ramp = (tS: number) => 20 + C0 + Math.min(tS * (3 / 60), 160); // 3 °C/min from 20 °C to 180 °C, then hold
   const fd = (a: number, T: number) => 1 / (1 + Math.exp(30 * (a - (-1.5 + 0.0055 * T))));
@@ -210,7 +210,7 @@ describe('rate and step guarantees', () => {
   ];
 
   it('the rate is never negative and α never decreases nor reaches 1 (random states, common practice)', () => {
-    // physics.md §2: α stays in [0, 1); the rate is never negative
+    // α stays in [0, 1); the rate is never negative
     const prepared = cards.map((c) => prepareKinetics(c));
     fc.assert(
       fc.property(

@@ -3,7 +3,7 @@ import { LLS_SWITCH_ALPHA } from '../schemas/study';
 import { perMinToPerS } from '../units';
 
 // Cure kinetics: dα/dt as a function of degree of cure α and temperature T (kelvin), and a step integrator
-// that advances α over a time step at a fixed temperature. Forms (physics.md §2):
+// that advances α over a time step at a fixed temperature. Forms:
 //   nth order:             dα/dt = A e^(−E/RT) (1−α)^n
 //   Kamal–Sourour:         dα/dt = (k1 + k2 α^m)(1−α)^n            (Kamal & Sourour, Polym. Eng. Sci. 13, 1973)
 //   Lee–Loos–Springer:     α < 0.3: (K1 + K2 α)(1−α)(B−α);  α ≥ 0.3: K3 (1−α)   (J. Compos. Mater. 16, 1982)
@@ -559,7 +559,7 @@ export function cureBatchSlopes(k: PreparedKinetics, w: CureBatch, nodes: Int32A
 
 /**
  * Degree of cure to start a simulation from: 0, except for a purely autocatalytic Kamal–Sourour law
- * (k1 = 0), which would never leave α = 0 and starts from the seed instead (physics.md §2).
+ * (k1 = 0), which would never leave α = 0 and starts from the seed instead (shared/solver/README.md, "Cure kinetics").
  */
 export function initialDegreeOfCure(k: PreparedKinetics): number {
   return k.formCode === KAMAL_SOUROUR && k.a1 === 0 ? SEED : 0;

@@ -4,7 +4,7 @@ import { dscPeakTemperatureK, firstOrderPeakTemperatureK, kissingerFit } from '.
 import { expectClose } from './test-support/expect-close';
 
 // First order, A = 1e10 /min, E = 80 kJ/mol; β = 2, 5, 10, 20 K/min → Tp = 383.943, 397.381, 408.162, 419.520 K
-// (Kissinger, Anal. Chem. 29, 1957; values in physics.md §8)
+// (Kissinger, Anal. Chem. 29, 1957)
 const A_PER_S = 1e10 / 60;
 const E = 80e3;
 const RATES_PER_MIN = [2, 5, 10, 20];
@@ -12,7 +12,7 @@ const PEAKS_K = [383.943, 397.381, 408.162, 419.52];
 
 describe('Kissinger analysis', () => {
   it('first-order peak temperatures at 2, 5, 10, 20 K/min are 383.943, 397.381, 408.162, 419.520 K', () => {
-    // Kissinger, Anal. Chem. 29, 1957 (physics.md §8)
+    // Kissinger, Anal. Chem. 29, 1957
     RATES_PER_MIN.forEach((b, i) => expectClose(firstOrderPeakTemperatureK({ aPerS: A_PER_S, eJPerMol: E }, b / 60), PEAKS_K[i], 0, 6e-4));
   });
 
@@ -23,7 +23,7 @@ describe('Kissinger analysis', () => {
   });
 
   it('the fit of ln(β/Tp²) against 1/Tp through the tabulated peaks recovers E = 80.0 kJ/mol and A', () => {
-    // Kissinger, Anal. Chem. 29, 1957 (physics.md §8: "recovering E = 80.0 kJ/mol")
+    // Kissinger, Anal. Chem. 29, 1957 (first-order case with E = 80.0 kJ/mol, which the fit must recover)
     const fit = kissingerFit(RATES_PER_MIN.map((b, i) => ({ heatingRateKPerS: b / 60, peakK: PEAKS_K[i] })));
     expectClose(fit.eJPerMol, 80e3, 5e-4);
     expectClose(fit.aPerS, A_PER_S, 0.01);

@@ -15,7 +15,7 @@ import {
   type IncrementalLaminate,
 } from './laminate';
 
-// Hyer, Stress Analysis of Fiber-Reinforced Composite Materials (1998), property set used in physics.md §8:
+// Hyer, Stress Analysis of Fiber-Reinforced Composite Materials (1998), property set:
 // E1 155, E2 12.1, G12 4.4 GPa, ν12 0.248, α1 −0.018e-6, α2 24.3e-6 /K, ply 0.15 mm, ΔT −150 K.
 const HYER = { e1: 155e9, e2: 12.1e9, g12: 4.4e9, nu12: 0.248, a1: -0.018e-6, a2: 24.3e-6, t: 0.15e-3 };
 const DT = -150;
@@ -47,7 +47,7 @@ function incrementalCooldown(angles: number[], steps: number): IncrementalLamina
 
 describe('classical lamination theory', () => {
   it('gives A11, A12, A66 of the Hyer [0/90]T laminate', () => {
-    // 25.1859, 0.90458, 1.3200 MN/m: Hyer (1998) property set, values by classical lamination theory (physics.md §8).
+    // 25.1859, 0.90458, 1.3200 MN/m: Hyer (1998) property set, values by classical lamination theory.
     const { geometry, qbar } = hyerLaminate([0, 90]);
     const abd = abdMatrix(geometry, qbar);
     expectClose(abd[0] / 1e6, 25.1859, 5e-6);
@@ -56,7 +56,7 @@ describe('classical lamination theory', () => {
   });
 
   it('gives the thermal curvatures of the Hyer [0/90]T laminate', () => {
-    // κx = −10.832, κy = +10.832 1/m for ΔT = −150 K, 0° ply at the bottom: Hyer (1998) set, CLT (physics.md §8).
+    // κx = −10.832, κy = +10.832 1/m for ΔT = −150 K, 0° ply at the bottom: Hyer (1998) set, CLT.
     const { geometry, qbar, free } = hyerLaminate([0, 90]);
     const x = elasticFreeResponse(geometry, qbar, free);
     expectClose(x[3], -10.832, 5e-5);
@@ -65,7 +65,7 @@ describe('classical lamination theory', () => {
   });
 
   it('gives the residual ply stresses of the Hyer [0/90]S laminate', () => {
-    // σx = −39.52 MPa in the 0° plies and +39.52 MPa in the 90° plies: Hyer (1998) set, CLT (physics.md §8).
+    // σx = −39.52 MPa in the 0° plies and +39.52 MPa in the 90° plies: Hyer (1998) set, CLT.
     const { geometry, qbar, free } = hyerLaminate([0, 90, 90, 0]);
     const x = elasticFreeResponse(geometry, qbar, free);
     expectClose(elasticPlyStress(qbar, 0, x, geometry.zBottomM[0], free)[0] / 1e6, -39.52, 2e-4);
@@ -110,7 +110,7 @@ describe('classical lamination theory', () => {
 
 describe('incremental lamination theory', () => {
   it.each([1, 7])('reproduces the Hyer [0/90]T curvatures in %s step(s)', (steps) => {
-    // Same CLT values (physics.md §8) through the two-point-per-ply incremental path.
+    // Same CLT values (Hyer 1998 set) through the two-point-per-ply incremental path.
     const lam = incrementalCooldown([0, 90], steps);
     expectClose(lam.curvature[0], -10.832, 5e-5);
     expectClose(lam.curvature[1], 10.832, 5e-5);
@@ -128,7 +128,7 @@ describe('incremental lamination theory', () => {
   });
 
   it('never rescales old stress when the stiffness grows (hypoelastic)', () => {
-    // physics.md §6: the current stiffness multiplies only the current increment. A held ply strained at
+    // Hypoelastic rule: the current stiffness multiplies only the current increment. A held ply strained at
     // stiffness share 1, then stiffened threefold with no new strain, keeps its stress; a further increment
     // then adds at the new stiffness.
     const geometry = laminateGeometry([1e-3]);

@@ -2,7 +2,7 @@
 // ε(z) = ε⁰ + z κ, engineering shear strain. Plane-stress stiffnesses are stored as six numbers in the order
 // [11, 12, 16, 22, 26, 66].
 //
-// The incremental form (physics.md §6): every ply has two integration points, at its bottom and top faces;
+// The incremental form (shared/solver/README.md, "Laminate"): every ply has two integration points, at its bottom and top faces;
 // stresses vary linearly between them, so the resultants are exact for uniform plies. Each step solves
 //   Σ ∫ [σ_old + Q_eff (φ(Δε⁰ + zΔκ) − Δε_free) + Σ (eᵢ − 1) hᵢ] {1, z} dz = 0,  Q_eff = Q̄∞ + Σ sᵢ gᵢ ΔQ̄
 // for Δε⁰, Δκ (6×6). Writing the old stress in keeps the laminate in equilibrium without drift and turns a

@@ -83,7 +83,7 @@ describe('mechanics through a cure', () => {
   });
 
   it('carries no stress and no curvature before gel', () => {
-    // physics.md §4: before gel the resin is liquid and carries no stress.
+    // Before gel the resin is liquid and carries no stress.
     const params = study({ layup: { plies: CROSS }, constraint: 'free' });
     const state = createMechanics(params, plyPoints(CROSS));
     drive(state, params, cureAndCool().slice(0, 100));
@@ -94,7 +94,7 @@ describe('mechanics through a cure', () => {
   });
 
   it('holds a laminate flat on the tool, then springs back at demould', () => {
-    // physics.md §6: tool-held until demould, then released; the springback is the warpage a user sees.
+    // Tool-held until demould, then released; the springback is the warpage a user sees.
     const params = study({ layup: { plies: CROSS }, constraint: 'tool-held' });
     const state = createMechanics(params, plyPoints(CROSS));
     const last = drive(state, params, cureAndCool());
@@ -259,7 +259,7 @@ describe('mechanics: elastic and viscoelastic limits', () => {
   });
 
   it('never rescales locked-in stress when the resin stiffens (CHILE, hypoelastic)', () => {
-    // physics.md §6: growing stiffness multiplies only new increments. Strain a rubbery [0/90] by cooling,
+    // Hypoelastic rule: growing stiffness multiplies only new increments. Strain a rubbery [0/90] by cooling,
     // then raise Tg at constant temperature (glassy now, no strain change): stresses must not move.
     const ref = referenceStudy();
     const params = study(
@@ -281,7 +281,7 @@ describe('mechanics: elastic and viscoelastic limits', () => {
   it('follows the Prony constant-rate closed form in a tool-held ply', () => {
     // A unidirectional ply held on a tool whose thermal strain grows at a constant rate, with constant shift
     // (C1 = 0, E_a = 0: a = 1), no ply CTE and no shrinkage: σ1 = Σ(Q∞1j + ΔQ1j Σ wᵢ τᵢ/t (1 − e^(−t/τᵢ))) ε(t)
-    // summed over j = 1, 2 (equal strain in x and y), the closed form behind physics.md §8's ramp value.
+    // summed over j = 1, 2 (equal strain in x and y), the closed form behind the constant-rate Prony check value.
     const ref = referenceStudy();
     const prony = { weights: [0.3, 0.7], timesS: [10, 100] };
     const layup: Layup = [{ angleDeg: 0, thicknessMm: 0.2 }];
@@ -321,7 +321,7 @@ function ply4(p: { e1Pa: number; e2Pa: number; g12Pa: number; nu12: number }): [
 
 /**
  * κx of a free [0/90]T pair of equal plies (0° at the bottom) under a uniform ΔT, by classical lamination
- * theory written out for this layup (Hyer 1998, property set in physics.md §8): A11 = A22 = (Q11 + Q22)t,
+ * theory written out for this layup (Hyer 1998 property set): A11 = A22 = (Q11 + Q22)t,
  * A12 = 2Q12 t, B11 = −B22 = (Q22 − Q11)t²/2, D11 = D22 = (Q11 + Q22)t³/3, D12 = 2Q12 t³/3; by symmetry
  * ε⁰x = ε⁰y = e and κy = −κx = −k, which leaves (A11 + A12)e + B11 k = N, B11 e + (D11 − D12)k = M.
  */
@@ -342,7 +342,7 @@ function crossPairKx(ply: { e1: number; e2: number; nu12: number; a1: number; a2
 
 describe('mechanics: shape at the shop temperature', () => {
   it('writes out classical lamination theory for a [0/90]T pair that reproduces Hyer’s curvature', () => {
-    // κx = −10.832 1/m for ΔT = −150 K: Hyer (1998) property set, CLT (physics.md §8).
+    // κx = −10.832 1/m for ΔT = −150 K: Hyer (1998) property set, CLT.
     expectClose(crossPairKx({ e1: 155e9, e2: 12.1e9, nu12: 0.248, a1: -0.018e-6, a2: 24.3e-6 }, 0.15e-3, -150), -10.832, 5e-5);
   });
 

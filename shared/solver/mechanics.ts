@@ -6,7 +6,7 @@
 // increment (thermal + chemical) with free-strain coefficients for the resin's effective modulus over the
 // step; then one incremental laminate step, free or held on the tool. Everything is allocated here, once.
 //
-// Simplification (physics.md §5, to be stated in the UI notes): the ply has an unrelaxed and a relaxed
+// Simplification (to be stated in the UI notes): the ply has an unrelaxed and a relaxed
 // stiffness from micromechanics with E_m = E_u and E_m = E∞, and the difference relaxes with the resin's
 // normalised spectrum.
 

@@ -4,7 +4,7 @@ import { createMetricsTracker, observeStep, summarize } from './metrics';
 import { referenceStudy } from './demo-cards';
 import { simulate } from './simulate';
 
-// Tg0 = −20 °C, Tg∞ = 220 °C, λ = 0.5: Tg(0.5) = 60 °C (DiBenedetto, physics.md §8 check value).
+// Tg0 = −20 °C, Tg∞ = 220 °C, λ = 0.5: Tg(0.5) = 60 °C (DiBenedetto, closed form).
 const tg = prepareGlassTransition({ tg0C: -20, tgInfC: 220, lambda: 0.5 });
 const z = new Float64Array([0, 0.001, 0.002]);
 
@@ -84,7 +84,7 @@ describe('metrics tracker', () => {
   });
 
   it('reports the adiabatic rise of the reference laminate', () => {
-    // ΔT_ad = (1 − V_f) ρ_r H_R / (V_f ρ_f c_f + (1 − V_f) ρ_r c_r) (physics.md §3), by hand for the demo cards:
+    // ΔT_ad = (1 − V_f) ρ_r H_R / (V_f ρ_f c_f + (1 − V_f) ρ_r c_r) (closed form), by hand for the demo cards:
     // 0.42·1260·500e3 / (0.58·1790·760 + 0.42·1260·1200) = 264.6e6 / 1 424 068 = 185.80 K
     const r = simulate(referenceStudy());
     expect(r.summary.adiabaticRiseC).toBeCloseTo(185.8052, 3);

@@ -2,13 +2,13 @@ import { describe, expect, it } from 'vitest';
 import { expectClose } from './test-support/expect-close';
 import { chamis, halpinTsai, plyProperties, resinShrinkageStrain, type FibreSI, type MatrixSI } from './micromechanics';
 
-// physics.md §8 constituent set: E_f 230 GPa, ν_f 0.30, α_f1 −0.41e-6 /K; E_m 2.9 GPa, ν_m 0.36, α_m 41.4e-6 /K; V_f 0.5.
+// Constituent set of the check: E_f 230 GPa, ν_f 0.30, α_f1 −0.41e-6 /K; E_m 2.9 GPa, ν_m 0.36, α_m 41.4e-6 /K; V_f 0.5.
 const fibre: FibreSI = { e1Pa: 230e9, e2Pa: 15e9, g12Pa: 20e9, nu12: 0.3, nu23: 0.3, cte1PerK: -0.41e-6, cte2PerK: 7e-6 };
 const matrix: MatrixSI = { ePa: 2.9e9, nu: 0.36, ctePerK: 41.4e-6 };
 
 describe('micromechanics', () => {
   it('gives E1 and ν12 by the rule of mixtures and α1 by Schapery', () => {
-    // E1 = 116.45 GPa (rule of mixtures); α1 = 1.1061e-7 /K (Schapery, J. Compos. Mater. 2, 1968); physics.md §8.
+    // E1 = 116.45 GPa (rule of mixtures); α1 = 1.1061e-7 /K (Schapery, J. Compos. Mater. 2, 1968).
     const ply = plyProperties(fibre, matrix, 0.5);
     expectClose(ply.e1Pa / 1e9, 116.45, 1e-6);
     expectClose(ply.cte1PerK, 1.1061e-7, 5e-5);
@@ -40,7 +40,7 @@ describe('micromechanics', () => {
   });
 
   it('makes the ply chemical strains from the same formulas with a non-shrinking fibre', () => {
-    // physics.md §5: chemical strains of the ply by Schapery's formulas with the resin's shrinkage strain in
+    // Chemical strains of the ply by Schapery's formulas with the resin's shrinkage strain in
     // place of α_m ΔT and fibre shrinkage zero: the same as CTEs of a ply whose fibre has zero CTE and whose
     // resin has a CTE of 1.
     const ply = plyProperties(fibre, matrix, 0.5);
@@ -52,7 +52,7 @@ describe('micromechanics', () => {
   });
 
   it('turns volumetric shrinkage linear in α into a linear strain', () => {
-    // physics.md §4: ΔV/V = −S α; linear strain (1 + ΔV/V)^(1/3) − 1. S = 4 %: −0.0135152 at α = 1.
+    // Shrinkage rule (shared/solver/README.md, "Resin state"): ΔV/V = −S α; linear strain (1 + ΔV/V)^(1/3) − 1. S = 4 %: −0.0135152 at α = 1.
     expectClose(resinShrinkageStrain(1, 0.04), Math.cbrt(0.96) - 1, 1e-12);
     expectClose(resinShrinkageStrain(1, 0.04), -0.0135152, 1e-5);
     expectClose(resinShrinkageStrain(0.5, 0.04), Math.cbrt(0.98) - 1, 1e-12);

@@ -77,7 +77,7 @@ export function freeStrainCoefficients(fibre: FibreSI, matrixEPa: number, matrix
 
 /**
  * Ply properties for one resin modulus. The viscoelastic ply uses this twice, with E_m = E_u (unrelaxed) and
- * E_m = E∞ (relaxed); the difference relaxes with the resin's normalised spectrum (physics.md §5).
+ * E_m = E∞ (relaxed); the difference relaxes with the resin's normalised spectrum (shared/solver/README.md, "Two ply stiffnesses").
  */
 export function plyProperties(fibre: FibreSI, matrix: MatrixSI, vf: number, transverse: TransverseModel = 'halpin-tsai'): PlyProperties {
   if (!(vf > 0 && vf < 1)) throw new RangeError(`fibreVolumeFraction: ${String(vf)} is out of range: allowed > 0 and < 1`);
@@ -104,7 +104,7 @@ export function plyProperties(fibre: FibreSI, matrix: MatrixSI, vf: number, tran
 
 /**
  * Linear shrinkage strain of the resin at cure α: volume change linear in α, ΔV/V = −S·α, turned into a
- * linear strain by (1 + ΔV/V)^(1/3) − 1 (physics.md §4). S is the total volumetric shrinkage as a fraction.
+ * linear strain by (1 + ΔV/V)^(1/3) − 1. S is the total volumetric shrinkage as a fraction.
  */
 export function resinShrinkageStrain(alpha: number, totalVolumetricShrinkage: number): number {
   const a = alpha < 0 ? 0 : alpha > 1 ? 1 : alpha;

@@ -153,7 +153,7 @@ describe('simulate: measured records', () => {
     expectClose(at(r, r.history.pressurePa, minToS(30)), 3.5e5, 1e-9);
     // After an hour at 140 °C air over the bag and 100 °C under the tool the column is near steady conduction
     // through series resistances (closed form): 1/h + t_lam/k_z + t_tool/k_tool + 1/h, with k_z of the demo
-    // ply from the Halpin–Tsai-type form of physics.md §3: 0.2·(2.6 + 2.2·0.58)/(2.6 − 2.2·0.58) = 0.5855 W/(m·K).
+    // ply from the Halpin–Tsai-type form (Halpin & Kardos 1976, from memory): 0.2·(2.6 + 2.2·0.58)/(2.6 − 2.2·0.58) = 0.5855 W/(m·K).
     // R = 0.002 + 0.00456/0.5855 + 0.010/167 + 0.002 = 0.011848 m²K/W, q = 40/R = 3376 W/m²,
     // so the tool's back face sits q/h = 6.75 K above the 100 °C tool-side temperature.
     const toolBack = at(r, r.history.toolK, minToS(119));
@@ -166,7 +166,7 @@ describe('simulate: measured records', () => {
 
 describe('simulate: Lee–Loos–Springer two-dwell cycle, thin part following the air', () => {
   it('matches the reference α at 36.4, 96.4, 120.8, 150.8 and 240.8 min within 0.5 %', () => {
-    // Check values: physics.md §8, computed with SciPy LSODA (rtol 1e-10) from the constants of
+    // Check values computed with SciPy LSODA (rtol 1e-10) from the constants of
     // Lee, Loos & Springer, J. Compos. Mater. 16 (1982): 25 °C, 2.5 °C/min → 116 °C, 60 min,
     // 2.5 °C/min → 177 °C, 120 min. A single 0.1 mm ply with h = 5000 W/(m²K) on both faces and no tool
     // follows the air within a few hundredths of a kelvin, so it stands in for the isothermal-with-air ODE.
@@ -219,10 +219,10 @@ describe('simulate: exotherm of thick sections', () => {
     const thin = simulate(study({ layup: { plies: ply(10, 0.2) }, cycle: fastCycle }));
     expect(thick.summary.peakOvershootC).toBeGreaterThan(10);
     expect(thin.summary.peakOvershootC).toBeLessThan(3);
-    // the adiabatic rise bounds what any section can reach: ΔT_ad = (1−Vf)ρ_r H_R/(ρc_p) (physics.md §3)
+    // the adiabatic rise bounds what any section can reach: ΔT_ad = (1−Vf)ρ_r H_R/(ρc_p) (closed form)
     expect(thick.summary.peakPartC).toBeLessThan(180 + thick.summary.adiabaticRiseC);
     expect(thick.summary.peakOvershootZMm).toBeGreaterThan(2);
-    // and the heat bookkeeping closed within 0.5 % (physics.md §3), or the summary would carry a warning
+    // and the heat bookkeeping closed within 0.5 % (shared/solver/README.md, "Heat balance"), or the summary would carry a warning
     expect(thick.summary.warnings).toEqual([]);
   });
 });
@@ -361,7 +361,7 @@ describe('simulate: thousands of random valid inputs', () => {
       fc.property(input, (x) => {
         const resin = x.kinetics === 'lls' ? leeLoosSpringerResin() : demoResin180();
         if (x.kinetics === 'nth') resin.kinetics = { form: 'nth-order', aPerS: 5e5, eJPerMol: 70_000, n: 1.4 };
-        // a pure α^m law starts from the seed α (physics.md §2)
+        // a pure α^m law starts from the seed α (shared/solver/README.md, "Cure kinetics")
         if (x.kinetics === 'autocatalytic') resin.kinetics = { form: 'kamal-sourour', a1PerS: 0, e1JPerMol: 0, a2PerS: 8e3, e2JPerMol: 60_000, m: 0.7, n: 1.2 };
         if (x.cureTable) resin.modulus.shift.cureTable = { alpha: [0.3, 0.7, 1], log10a: [-2, 0, 1] };
         resin.heatOfReactionKJPerKg = x.heatKJ;

@@ -10,7 +10,7 @@ import { adiabaticTemperatureRiseK, advanceThermochemical, createThermochemical,
 export type { LimitCheck, SimulateOptions, SimulationHistory, SimulationResult, StepLimits, StudySummary } from './simulation-result';
 export { DEFAULT_STEP_LIMITS, PREVIEW_STEP_LIMITS } from './simulation-result';
 
-// The adaptive time loop (physics.md §1): cycle → heat and cure through the thickness → ply stresses and
+// The adaptive time loop (step rule in shared/solver/README.md, "Time step"): cycle → heat and cure through the thickness → ply stresses and
 // laminate equilibrium, step by step, with histories recorded and metrics tracked on the way. Everything is
 // allocated once per simulation (history buffers grow by doubling, a handful of times per run), never per step.
 
@@ -18,7 +18,7 @@ export const MODEL_VERSION = 'dwellform-solver 1.1.0'; // 1.1: shape reported at
 
 /** Far more steps than any valid study needs; reaching it means the step control has failed. */
 const MAX_STEPS = 5_000_000;
-/** Energy-balance residual above which the summary warns (physics.md §3 accepts < 0.5 %). */
+/** Energy-balance residual above which the summary warns (the model accepts < 0.5 %). */
 const ENERGY_WARNING = 0.005;
 
 const HISTORY_KEYS = [
@@ -156,7 +156,7 @@ export function simulate(input: StudyParamsInput, options: SimulateOptions = {})
   let lastCureRate = 0; // that node's mean cure rate over the last step, 1/s
   while (!cycle.done) {
     if (steps >= MAX_STEPS) throw new Error(`simulate: gave up after ${MAX_STEPS} steps at t = ${t} s (step control failed)`);
-    // Predict the step from the limits (physics.md §1); a step may at most double the last unclipped one.
+    // Predict the step from the limits (shared/solver/README.md, "Time step"); a step may at most double the last unclipped one.
     let dt = Math.min(limits.maxStepS, 2 * naturalDt);
     const airRate = airRateKPerS(program, cycle);
     if (airRate > 0) dt = Math.min(dt, limits.maxAirChangeK / airRate);

@@ -38,7 +38,7 @@ export interface SimulationResult {
 
 export interface SimulateOptions {
   recordProfiles?: boolean;
-  /** step-size control; defaults follow physics.md §1 (additive to the contract, used by convergence tests) */
+  /** step-size control; defaults follow the time-step rule in shared/solver/README.md (additive to the contract, used by convergence tests) */
   stepLimits?: Partial<StepLimits>;
 }
 

@@ -76,12 +76,12 @@ describe('mesh of the coupled column', () => {
 
 describe('adiabatic temperature rise', () => {
   it('ΔT_ad = (1 − V_f) ρ_r H_R / (ρc)_laminate, evaluated by hand for the test card', () => {
-    // physics.md §3: 0.4·1260·473600 / (0.6·1790·760 + 0.4·1260·1250) = 238694.4 / 1446240
+    // closed form, by hand: 0.4·1260·473600 / (0.6·1790·760 + 0.4·1260·1250) = 238694.4 / 1446240
     expectClose(adiabaticTemperatureRiseK(study(1)), 238694.4 / 1446240 * 1000, 1e-9);
   });
 
   it('an insulated laminate heats by ΔT_ad × Δα (energy conservation)', () => {
-    // first law with no heat exchange: (ρc) ΔT = (1 − V_f) ρ_r H_R Δα (physics.md §3)
+    // first law with no heat exchange: (ρc) ΔT = (1 − V_f) ρ_r H_R Δα (closed form)
     const s = createThermochemical(study(8, { heatTransfer: { bagSideWPerM2K: 0, toolSideWPerM2K: 0 } }), { initialK: 150 + C0 });
     cure(s, () => 150 + C0, 3 * 3600);
     const dAlpha = s.alpha[4];
@@ -92,7 +92,7 @@ describe('adiabatic temperature rise', () => {
 
 describe('energy bookkeeping', () => {
   it('closes within 0.5 % on a 25 mm laminate on a tool with a strong exotherm', () => {
-    // physics.md §3: heat in through the faces + reaction heat = change of stored heat, to < 0.5 %
+    // first law: heat in through the faces + reaction heat = change of stored heat, to < 0.5 %
     const s = createThermochemical(study(100, { tool: aluminium }), { initialK: 20 + C0 });
     const air = (tS: number) => (tS < 300 * 60 ? rampHold(3)(tS) : Math.max(177 + C0 - (3 * (tS - 300 * 60)) / 60, 60 + C0));
     cure(s, air, 340 * 60);
@@ -199,7 +199,7 @@ describe('coupling passes', () => {
 
 describe('robustness', () => {
   it('a ten-minute step into a runaway exotherm converges by internal halving and conserves energy', () => {
-    // insulated, so the first law gives ΔT = ΔT_ad × Δα however the step was cut (physics.md §3)
+    // insulated, so the first law gives ΔT = ΔT_ad × Δα however the step was cut (closed form)
     const s = createThermochemical(study(8, { heatTransfer: { bagSideWPerM2K: 0, toolSideWPerM2K: 0 } }), { initialK: 130 + C0 });
     advanceThermochemical(s, 600, 130 + C0, 130 + C0);
     expect(s.lastStep.splits).toBeGreaterThan(0);

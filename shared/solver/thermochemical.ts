@@ -4,7 +4,7 @@ import { glassTransitionK, prepareGlassTransition, type GlassTransitionK } from 
 import { createHeatColumn, prepareHeatStep, solveHeatStep, storedHeat, transverseConductivity, volumetricHeatCapacity, type BoundaryHeat, type HeatColumn, type HeatLayer } from './heat-transfer';
 import { ALPHA_MAX, advanceCureBatch, cureBatchSlopes, createCureBatch, cureRate, initialDegreeOfCure, prepareKinetics, type CureBatch, type PreparedKinetics } from './kinetics';
 
-// Heat and cure coupled through the reaction heat q = ρ_r (1 − V_f) H_R dα/dt (physics.md §2–§3).
+// Heat and cure coupled through the reaction heat q = ρ_r (1 − V_f) H_R dα/dt (rules in shared/solver/README.md, "Model rules").
 //
 // Coupling choice: fixed-point (Picard) iteration inside each step, not operator splitting. Each pass integrates
 // the cure at every node over the whole step at the θ-weighted temperature T_θ = (1 − θ)Tⁿ + θTⁿ⁺¹ (the
@@ -103,7 +103,7 @@ export interface ThermochemicalState {
   };
 }
 
-/** Adiabatic temperature rise of the laminate, ΔT_ad = (1 − V_f) ρ_r H_R / (ρc)_laminate, K (physics.md §3). */
+/** Adiabatic temperature rise of the laminate, ΔT_ad = (1 − V_f) ρ_r H_R / (ρc)_laminate, K. */
 export function adiabaticTemperatureRiseK(p: Pick<ThermochemicalParams, 'resin' | 'fibre' | 'fibreVolumeFraction'>): number {
   const vf = p.fibreVolumeFraction;
   const rhoC = volumetricHeatCapacity(p.fibre.densityKgM3, p.fibre.specificHeatJPerKgK, p.resin.densityKgM3, p.resin.specificHeatJPerKgK, vf);

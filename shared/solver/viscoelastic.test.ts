@@ -14,7 +14,7 @@ import {
   type ShiftSI,
 } from './viscoelastic';
 
-// The physics.md §8 Prony set: E∞ = 1 GPa, E1 = 2 GPa (τ 10 s), E2 = 4 GPa (τ 100 s).
+// Prony set of the checks: E∞ = 1 GPa, E1 = 2 GPa (τ 10 s), E2 = 4 GPa (τ 100 s).
 const E_INF = 1e9;
 const TERMS = [2e9, 4e9];
 const TIMES = [10, 100];
@@ -33,7 +33,7 @@ function strainAtRate(s: ReturnType<typeof pronySet>, rate: number, durationS: n
 
 describe('recursive Prony update', () => {
   it('relaxes after a strain step as the closed form', () => {
-    // Closed form σ(t) = ε0 (E∞ + Σ Eᵢ e^(−t/τᵢ)), ε0 = 1e-3; values from physics.md §8.
+    // Closed form σ(t) = ε0 (E∞ + Σ Eᵢ e^(−t/τᵢ)), ε0 = 1e-3; values by the closed form.
     const s = pronySet();
     const at0 = advanceScalarRelaxation(s, 0, 1e-3);
     expectClose(at0 / 1e6, 7.0, 1e-9);
@@ -54,14 +54,14 @@ describe('recursive Prony update', () => {
   });
 
   it.each([50, 5, 0.5])('matches the constant-rate closed form at 50 s with Δt = %s s (exact for any step)', (dt) => {
-    // Closed form σ = ε̇ (E∞ t + Σ Eᵢ τᵢ (1 − e^(−t/τᵢ))), ε̇ = 1e-4/s: 22.725298 MPa at 50 s (physics.md §8).
+    // Closed form σ = ε̇ (E∞ t + Σ Eᵢ τᵢ (1 − e^(−t/τᵢ))), ε̇ = 1e-4/s: 22.725298 MPa at 50 s.
     // The update is exact for strain linear in reduced time, so the step size must not matter.
     const sigma = strainAtRate(pronySet(), 1e-4, 50, dt);
     expectClose(sigma / 1e6, 22.725298, 0, 5e-7);
   });
 
   it('matches the ramp-then-hold closed form', () => {
-    // Ramp at 1e-4/s for 20 s, then hold: σ(100 s) = 5.258561 MPa (closed form; physics.md §8).
+    // Ramp at 1e-4/s for 20 s, then hold: σ(100 s) = 5.258561 MPa (closed form).
     for (const [rampDt, holdDt] of [
       [20, 80],
       [1, 3.2],
@@ -163,8 +163,8 @@ describe('shift factor', () => {
   });
 
   it('adds the cure table by linear interpolation, flat beyond its ends', () => {
-    // By definition of the card's optional cure table (physics.md §4: a user table of log₁₀ a_α(α) added to the
-    // shift); linear between its points and flat beyond them is our reading of a table (common practice, no
+    // By definition of the card's optional cure table (shared/solver/README.md, "Resin state": a user table of log₁₀ a_α(α)
+    // added to the shift); linear between its points and flat beyond them is our reading of a table (common practice, no
     // source). At T = T_r the WLF part is 0, so the result is the table alone: halfway from 0.6 to 0.8 → 1.
     const withTable: ShiftSI = { ...shift, cureAlpha: Float64Array.of(0.4, 0.8), cureLog10a: Float64Array.of(-2, 2) };
     expectClose(log10ShiftFactor(withTable, 400, 400, 0.7), 1, 1e-12);
@@ -201,7 +201,7 @@ describe('resin modulus for the history', () => {
   });
 
   it('is glassy well below Tg and relaxed well above it for a Prony resin', () => {
-    // By definition of the Prony form (physics.md §4): far below T_r the shift factor is huge, nothing relaxes in
+    // By definition of the Prony form: far below T_r the shift factor is huge, nothing relaxes in
     // the 60 s window and E → E_u; far above, a ≪ 1 and E → E∞. The two temperatures are common practice for
     // "well below / above Tg" (no source).
     const prony: ResinRelaxation = { ...resin, model: 'prony', weights: Float64Array.of(0.5, 0.5), timesS: Float64Array.of(1e3, 1e6) };

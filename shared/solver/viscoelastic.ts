@@ -1,7 +1,7 @@
 // Resin relaxation (SI): normalised Prony series in reduced time, the Tg-referenced shift factor, the
 // recursive stress update, and the CHILE elastic alternative through the same path.
 //
-//   E(ξ) = E∞ + (E_u − E∞) Σ wᵢ e^(−ξ/τᵢ),  Σ wᵢ = 1,  dξ = dt / a(T, α)          (physics.md §4)
+//   E(ξ) = E∞ + (E_u − E∞) Σ wᵢ e^(−ξ/τᵢ),  Σ wᵢ = 1,  dξ = dt / a(T, α)          (normalised Prony form)
 //   log₁₀ a = −C1 (T − T_r)/(C2 + T − T_r) for T ≥ T_r, T_r = Tg(α) + offset     (Williams, Landel & Ferry 1955)
 //   log₁₀ a = E_a/(R ln 10) (1/T − 1/T_r) below T_r                               (Arrhenius; continuous at T_r)
 //   plus an optional cure table log₁₀ a_α(α), linearly interpolated and held flat beyond its ends.
