@@ -25,7 +25,7 @@ export function ToolPanel() {
   const edit = useStudyEditor((s) => s.edit);
   const issues = useIssueCount('tool');
   if (!tool) return null;
-  const current = tool.kind === 'none' ? 'No tool (free both faces)' : tool.name in toolChoices ? tool.name : tool.name;
+  const current = tool.kind === 'none' ? 'No tool (free both faces)' : tool.name;
   const options = Object.keys(toolChoices).map((k) => ({ value: k, label: k }));
   if (!(current in toolChoices)) options.push({ value: current, label: current });
   return (
