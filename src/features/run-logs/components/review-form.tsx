@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { fmtTime } from '../../../lib/format-time';
 import { refusalOf, useDecideReview, type ReviewDecision, type RunLogDetail } from '../api/run-logs-api';
 
 const DECISIONS: { value: ReviewDecision; label: string; hint: string }[] = [
@@ -6,8 +7,6 @@ const DECISIONS: { value: ReviewDecision; label: string; hint: string }[] = [
   { value: 'rework', label: 'Rework', hint: 'e.g. a post-cure or a repair brings it back' },
   { value: 'scrap', label: 'Scrap', hint: 'the part cannot be accepted' },
 ];
-
-const fmtTime = (iso: string) => new Date(iso).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' });
 
 /** The decision on a run: recorded once by a lead, then shown read-only to everyone. */
 export function ReviewSection({ runLog }: { runLog: RunLogDetail }) {

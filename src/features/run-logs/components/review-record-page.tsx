@@ -6,7 +6,8 @@ import { FlaggedChannels } from './flagged-channels';
 import { GaugesChart, ReplayChart } from './replay-chart';
 import { SpecSummary } from './spec-summary';
 import { ReplayResults } from './replay-results';
-import { CAUTIONS, fmtTime, LoadError, Loading } from './status';
+import { fmtTime } from '../../../lib/format-time';
+import { CAUTIONS, LoadError, Loading } from './status';
 
 const DECISION_LABEL = { 'use-as-is': 'Use as is', rework: 'Rework', scrap: 'Scrap' } as const;
 

@@ -1,6 +1,6 @@
 import { Link } from 'react-router-dom';
 import type { RunLogListItem } from '../api/run-logs-api';
-import { fmtTime } from './status';
+import { fmtTime } from '../../../lib/format-time';
 
 const DECISION_LABEL = { 'use-as-is': 'Use as is', rework: 'Rework', scrap: 'Scrap' } as const;
 

@@ -6,7 +6,8 @@ import { GaugesChart, ReplayChart } from './replay-chart';
 import { SpecSummary } from './spec-summary';
 import { ReplayResults } from './replay-results';
 import { ReviewSection } from './review-form';
-import { CAUTIONS, fmtTime, LoadError, Loading } from './status';
+import { fmtTime } from '../../../lib/format-time';
+import { CAUTIONS, LoadError, Loading } from './status';
 
 const panel = 'mt-5 rounded border border-rule bg-paper-raised p-4';
 const heading = 'text-sm font-semibold uppercase tracking-wide text-ink-soft';

@@ -14,8 +14,6 @@ export function LoadError({ error, what }: { error: Error; what: string }) {
   );
 }
 
-export const fmtTime = (iso: string | null) => (iso ? new Date(iso).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' }) : '—');
-
 /** What predictions are and are not: shown on the review page and printed on the review record. */
 export const CAUTIONS = [
   'The replay is a model prediction from the measured air and tool temperatures. It does not replace coupon tests, and it does not take the place of the material review board, whose authority over the disposition of the part stands.',
