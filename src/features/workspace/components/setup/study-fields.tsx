@@ -1,7 +1,7 @@
 import { memo } from 'react';
 import { NumberField } from '../../../../components/ui/number-field';
 import { getAt, setAt } from '../../model/field-path';
-import { issueAt } from '../../model/study-validation';
+import { useIssue } from '../../hooks/use-study-field';
 import { studyEditorStore, useStudyEditor } from '../../stores/study-editor-store';
 
 export type FieldSpec = { path: string; label: string; unit: string; step?: number; digits?: number };
@@ -12,7 +12,7 @@ export type FieldSpec = { path: string; label: string; unit: string; step?: numb
  */
 export const StudyNumberField = memo(function StudyNumberField({ spec, compact }: { spec: FieldSpec; compact?: boolean }) {
   const value = useStudyEditor((s) => getAt(s.params, spec.path));
-  const issue = useStudyEditor((s) => (s.params ? issueAt(s.params, spec.path) : undefined));
+  const issue = useIssue(spec.path);
   if (typeof value !== 'number') return null;
   return (
     <NumberField
