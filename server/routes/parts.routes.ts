@@ -85,8 +85,10 @@ export function partRoutes(sequelize: Sequelize): Router {
   router.put('/parts/:partId/baseline', requireTeamRole('pinBaseline', teamOfPart), async (req, res) => {
     const body = pinBaselineBody.parse(req.body);
     const part = (await Part.findByPk(idParam(req.params.partId)!))!;
-    const revision = await Revision.findByPk(body.revisionId, { include: [{ model: Study, as: 'study', attributes: ['partId'] }] });
-    if (!revision || (revision as Revision & { study: Study }).study.partId !== part.id) {
+    const revision = (await Revision.findByPk(body.revisionId, { include: [{ model: Study, as: 'study', attributes: ['partId', 'title'] }] })) as
+      | (Revision & { study: Study })
+      | null;
+    if (!revision || revision.study.partId !== part.id) {
       throw badRequest(`Invalid revisionId: revision ${body.revisionId} is not a revision of a study of this part.`, { field: 'revisionId' });
     }
     // the replaced pin is kept, with names, in the event itself
@@ -100,7 +102,6 @@ export function partRoutes(sequelize: Sequelize): Router {
       number: old?.number ?? null,
       note: part.baselineNote,
     };
-    const pinnedStudy = await Study.findByPk(revision.studyId, { attributes: ['title'] });
     const user = currentUser(req);
     await sequelize.transaction(async (transaction) => {
       await part.update({ baselineRevisionId: revision.id, baselineNote: body.note, baselinePinnedBy: user.id, baselinePinnedAt: new Date() }, { transaction });
@@ -114,7 +115,7 @@ export function partRoutes(sequelize: Sequelize): Router {
           details: {
             revisionId: revision.id,
             studyId: revision.studyId,
-            studyTitle: pinnedStudy?.title ?? null,
+            studyTitle: revision.study.title,
             number: revision.number,
             partNumber: part.partNumber,
             partName: part.name,
