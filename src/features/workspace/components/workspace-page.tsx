@@ -12,7 +12,7 @@ import { useLiveSolve } from '../hooks/use-live-solve';
 import { useUndoKeys } from '../hooks/use-undo-keys';
 import { measurePainted, measureRendered } from '../perf/input-latency';
 import { resultsStore, useResults } from '../stores/results-store';
-import { studyEditorStore, useStudyEditor } from '../stores/study-editor-store';
+import { selectDirty, studyEditorStore, useStudyEditor } from '../stores/study-editor-store';
 import { AssumptionsNote } from './assumptions-note';
 import { CycleEditor } from './cycle/cycle-editor';
 import { SegmentTable } from './cycle/segment-table';
@@ -117,8 +117,7 @@ const SetupColumn = memo(function SetupColumn() {
 function useLeaveGuard() {
   useEffect(() => {
     const onBeforeUnload = (e: BeforeUnloadEvent) => {
-      const s = studyEditorStore.getState();
-      if (s.headId !== s.savedId) e.preventDefault();
+      if (selectDirty(studyEditorStore.getState())) e.preventDefault();
     };
     window.addEventListener('beforeunload', onBeforeUnload);
     return () => window.removeEventListener('beforeunload', onBeforeUnload);
