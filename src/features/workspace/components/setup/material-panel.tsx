@@ -67,6 +67,9 @@ const fibreFields: FieldSpec[] = [
   { path: 'fibre.conductivityTransverseWPerMK', label: 'Conductivity transverse', unit: 'W/(m·K)', step: 0.1 },
 ];
 
+/** Built once: the panel only needs the demo card's name to tell whether to offer it. */
+const DEMO_FIBRE_NAME = demoCarbonFibre().name;
+
 export function MaterialPanel() {
   const resin = useStudyEditor((s) => s.params?.resin);
   const fibre = useStudyEditor((s) => s.params?.fibre);
@@ -106,7 +109,7 @@ export function MaterialPanel() {
           <span className="block text-[11px] text-ink-faint">Source: {fibre.provenance.source}</span>
         </p>
         <StudyFields fields={fibreFields} />
-        {fibre.name !== demoCarbonFibre().name && (
+        {fibre.name !== DEMO_FIBRE_NAME && (
           <button
             type="button"
             className="mt-2 text-xs text-slate underline"
