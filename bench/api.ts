@@ -132,6 +132,22 @@ async function waitForHealth(timeoutMs = 60_000) {
   throw new Error(`server did not answer at ${base}`);
 }
 
+/** Polls each study until a save on top of `latest` shows up (or gives up after `timeoutMs`). */
+async function waitForSaves(ids: number[], headers: Record<string, string>, latest: Map<number, number>, timeoutMs = 10_000) {
+  const until = Date.now() + timeoutMs;
+  let pending = ids;
+  while (pending.length > 0 && Date.now() < until) {
+    const landed = await Promise.all(
+      pending.map(async (id) => {
+        const res = await fetch(`${base}/api/studies/${id}`, { headers });
+        return ((await res.json()) as { latestRevisionNumber: number }).latestRevisionNumber > latest.get(id)!;
+      }),
+    );
+    pending = pending.filter((_, i) => !landed[i]);
+    if (pending.length > 0) await new Promise((r) => setTimeout(r, 200));
+  }
+}
+
 function figuresOf(name: string, r: autocannon.Result): Figures {
   return {
     [`${name} requests/s (mean)`]: Math.round(r.requests.average),
@@ -217,6 +233,12 @@ export async function runApiBench(): Promise<Figures> {
         },
       ],
     });
+
+    // autocannon drops its sockets when the time is up, but the server still
+    // finishes the saves it took; let them land before the server is stopped,
+    // or they reach a closed connection pool.
+    const inFlight = studyIds.filter((id) => !free.includes(id));
+    await waitForSaves(inFlight, headers, latest);
 
     const figures: Figures = {
       revisions: REVISIONS,
