@@ -2,7 +2,7 @@ import type { CycleSegment, SegmentCycle, StudyParams } from '../../../../../sha
 import type { Draft } from 'immer';
 import { NumberField } from '../../../../components/ui/number-field';
 import { SelectField } from '../../../../components/ui/select-field';
-import { cycleSpans, newSegment, splitSegment } from '../../model/cycle-geometry';
+import { cycleEndMin, cycleSpans, newSegment, splitSegment } from '../../model/cycle-geometry';
 import { HOLD_START_WORDS, segmentNames } from '../../../../../shared/compare/segment-names';
 import { issueAt } from '../../model/study-validation';
 import { useStudyEditor } from '../../stores/study-editor-store';
@@ -45,7 +45,7 @@ export function SegmentTable() {
           />
         </div>
         <p className="num pb-1 text-xs text-ink-soft">
-          cycle length {Math.round(spans.length ? spans[spans.length - 1].endMin : 0)} min (clock holds)
+          cycle length {Math.round(cycleEndMin(spans))} min (clock holds)
         </p>
       </div>
       <table className="w-full border-collapse text-sm">
