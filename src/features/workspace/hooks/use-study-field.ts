@@ -1,6 +1,3 @@
-import { useCallback } from 'react';
-import type { Draft } from 'immer';
-import type { StudyParams } from '../../../../shared/schemas/study';
 import { issueAt, issuesUnder } from '../model/study-validation';
 import { useStudyEditor } from '../stores/study-editor-store';
 
@@ -11,13 +8,4 @@ export function useIssue(path: string): string | undefined {
 
 export function useIssueCount(prefix: string): number {
   return useStudyEditor((s) => (s.params ? issuesUnder(s.params, prefix).length : 0));
-}
-
-/** An edit function for one field; typing into the same field folds into one undo step. */
-export function useFieldEdit(path: string, label: string) {
-  const edit = useStudyEditor((s) => s.edit);
-  return useCallback(
-    (recipe: (draft: Draft<StudyParams>) => void) => edit(label, recipe, { coalesceKey: path }),
-    [edit, label, path],
-  );
 }
