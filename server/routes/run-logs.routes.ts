@@ -4,12 +4,14 @@ import multer from 'multer';
 import { z } from 'zod';
 import type { Sequelize } from 'sequelize';
 import { currentUser, requireTeamRole, ROLE_RANK } from '../auth/access';
-import { Part, Study } from '../models/index';
+import { Study } from '../models/index';
 import { defineUploadChunk } from '../models/upload-chunk.model';
 import { badRequest, forbidden } from '../middleware/http-error';
 import { MAX_RUN_LOG_BYTES, runLogMappingSchema } from '../../shared/run-log/index';
 import { createRunLog, decideReview, inspectUpload, listRunLogs, readChunks, runLogDetail, teamOfRunLog } from '../services/run-logs.service';
 import { idParam } from './request-schemas';
+import { teamOfPart } from './parts.routes';
+import { teamOfStudy } from './studies.routes';
 
 // Run-log routes: inspect a file (propose a column mapping, store nothing), upload it with the confirmed
 // mapping, read the analysed runs of a study or a part, download the raw file, and record the review.
@@ -41,16 +43,6 @@ export const reviewBody = z.object({
     .max(4000, { error: 'allowed ≤ 4000 characters' }),
 });
 
-const teamOfStudy = async (req: Request) => {
-  const id = idParam(req.params.studyId);
-  const study = id ? await Study.findByPk(id, { attributes: ['teamId'] }) : null;
-  return study?.teamId ?? null;
-};
-const teamOfPart = async (req: Request) => {
-  const id = idParam(req.params.partId);
-  const part = id ? await Part.findByPk(id, { attributes: ['teamId'] }) : null;
-  return part?.teamId ?? null;
-};
 const teamOfRunLogParam = async (req: Request) => {
   const id = idParam(req.params.runLogId);
   return id ? teamOfRunLog(id) : null;

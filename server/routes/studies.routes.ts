@@ -8,7 +8,7 @@ import { createStudy, revisionView, saveRevision, studyDetail } from '../service
 import { forkBody, idParam, restoreBody, saveRevisionBody } from './request-schemas';
 import { cachedTeamOf, studyDetailCache, studyTeamCache } from '../services/read-caches';
 
-const teamOfStudy = async (req: Request) => {
+export const teamOfStudy = async (req: Request) => {
   const id = idParam(req.params.studyId);
   if (!id) return null;
   return cachedTeamOf(studyTeamCache, id, async () => (await Study.findByPk(id, { attributes: ['teamId'] }))?.teamId ?? null);
