@@ -11,7 +11,7 @@ import { cycleEndMin, cycleSpans } from '../model/cycle-geometry';
 import { useLiveSolve } from '../hooks/use-live-solve';
 import { useUndoKeys } from '../hooks/use-undo-keys';
 import { measurePainted, measureRendered } from '../perf/input-latency';
-import { resultsStore, useResults } from '../stores/results-store';
+import { resultsStore, selectResultEndMin, useResults } from '../stores/results-store';
 import { selectDirty, studyEditorStore, useStudyEditor } from '../stores/study-editor-store';
 import { AssumptionsNote } from './assumptions-note';
 import { CycleEditor } from './cycle/cycle-editor';
@@ -48,7 +48,7 @@ function useWorkspaceTimeAxis(width: number) {
   const nominalEnd = useStudyEditor((s) =>
     s.params?.cycle.kind === 'segments' ? cycleEndMin(cycleSpans(s.params.cycle.startC, s.params.cycle.segments)) : 0,
   );
-  const resultEnd = useResults((s) => (s.result ? s.result.history.timeS[s.result.history.timeS.length - 1] / 60 : 0));
+  const resultEnd = useResults(selectResultEndMin);
   const dragging = useResults((s) => s.dragging);
   const held = useRef(0);
   let end = niceCycleEnd(Math.max(nominalEnd, resultEnd, 1));

@@ -77,6 +77,9 @@ export function createResultsStore() {
 
 export const resultsStore = createResultsStore();
 
+/** Minutes the last result runs to (0 before the first): where the scrubber and the time axis end. */
+export const selectResultEndMin = (s: ResultsState) => (s.result ? s.result.history.timeS[s.result.history.timeS.length - 1] / 60 : 0);
+
 export function useResults<T>(selector: (state: ResultsState & ResultsActions) => T): T {
   return useStore(resultsStore, selector);
 }

@@ -1,10 +1,10 @@
-import { useResults } from '../../stores/results-store';
+import { selectResultEndMin, useResults } from '../../stores/results-store';
 
 /** The scrubber as a keyboard control: the time the through-thickness views show. */
 export function ScrubControl() {
   const scrubMin = useResults((s) => s.scrubMin);
   const scrubTo = useResults((s) => s.scrubTo);
-  const endMin = useResults((s) => (s.result ? s.result.history.timeS[s.result.history.timeS.length - 1] / 60 : 0));
+  const endMin = useResults(selectResultEndMin);
   return (
     <label className="flex items-center gap-2 text-xs text-ink-soft">
       Time shown
