@@ -19,6 +19,7 @@ export const ACTION_ROLE = {
   pinBaseline: 'lead',
   manageMembers: 'lead', // roles, invitations
   readAudit: 'lead',
+  review: 'lead', // the use-as-is / rework / scrap decision on a run log
 } as const satisfies Record<string, TeamRole>;
 
 export type TeamAction = keyof typeof ACTION_ROLE;

@@ -3,7 +3,7 @@ import { Router, type Request } from 'express';
 import multer from 'multer';
 import { z } from 'zod';
 import type { Sequelize } from 'sequelize';
-import { currentUser, requireTeamRole, ROLE_RANK } from '../auth/access';
+import { currentUser, requireTeamRole, roleAllows } from '../auth/access';
 import { Study } from '../models/index';
 import { defineUploadChunk } from '../models/upload-chunk.model';
 import { badRequest, forbidden } from '../middleware/http-error';
@@ -116,7 +116,7 @@ export function runLogRoutes(sequelize: Sequelize): Router {
   /** A lead's decision: use-as-is, rework or scrap, with a rationale; once made it cannot be changed. */
   router.post('/run-logs/:runLogId/review', canReadRunLog, async (req, res) => {
     const role = req.teamAccess!.role;
-    if (role === null || ROLE_RANK[role] < ROLE_RANK.lead) {
+    if (!roleAllows(role, 'review')) {
       throw forbidden(`Only a lead records a review decision; your role is ${role ?? 'none'}.`);
     }
     const body = reviewBody.parse(req.body);
