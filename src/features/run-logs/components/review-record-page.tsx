@@ -6,7 +6,7 @@ import { FlaggedChannels } from './flagged-channels';
 import { GaugesChart, ReplayChart } from './replay-chart';
 import { SpecSummary } from './spec-summary';
 import { ReplayResults } from './replay-results';
-import { fmtTime } from '../../../lib/format-time';
+import { fmtStamp, fmtTime } from '../../../lib/format-time';
 import { CAUTIONS, LoadError, Loading } from './status';
 
 const DECISION_LABEL = { 'use-as-is': 'Use as is', rework: 'Rework', scrap: 'Scrap' } as const;
@@ -34,7 +34,7 @@ export function ReviewRecordPage() {
       <dl className="mt-3 grid grid-cols-[12rem_1fr] gap-x-3 gap-y-1 text-sm">
         <dt className="text-ink-soft">Part</dt><dd>{r.part ? `${r.part.partNumber} · ${r.part.name}` : '—'}</dd>
         <dt className="text-ink-soft">Study</dt><dd>{r.study?.title ?? '—'}, revision {rec.checkedAgainst.number}</dd>
-        <dt className="text-ink-soft">Run log</dt><dd>{r.fileName} ({rec.rows.toLocaleString()} rows, {rec.durationMin} min{rec.startedAt ? `, started ${rec.startedAt.replace('T', ' ').slice(0, 16)}` : ''})</dd>
+        <dt className="text-ink-soft">Run log</dt><dd>{r.fileName} ({rec.rows.toLocaleString()} rows, {rec.durationMin} min{rec.startedAt ? `, started ${fmtStamp(rec.startedAt)}` : ''})</dd>
         <dt className="text-ink-soft">SHA-256</dt><dd className="num break-all text-xs">{r.checksumSha256}</dd>
         <dt className="text-ink-soft">Uploaded</dt><dd>{r.uploadedBy?.name ?? 'unknown'}, {fmtTime(r.uploadedAt)}</dd>
       </dl>

@@ -6,7 +6,7 @@ import { GaugesChart, ReplayChart } from './replay-chart';
 import { SpecSummary } from './spec-summary';
 import { ReplayResults } from './replay-results';
 import { ReviewSection } from './review-form';
-import { fmtTime } from '../../../lib/format-time';
+import { fmtStamp, fmtTime } from '../../../lib/format-time';
 import { CAUTIONS, LoadError, Loading } from './status';
 
 const panel = 'mt-5 rounded border border-rule bg-paper-raised p-4';
@@ -28,7 +28,7 @@ export function RunLogPage() {
       </p>
       <h1 className="mt-1 text-2xl font-semibold">{r.fileName}</h1>
       <p className="mt-1 text-sm text-ink-soft">
-        {rec.rows.toLocaleString()} rows over {rec.durationMin} min{rec.startedAt ? `, started ${rec.startedAt.replace('T', ' ').slice(0, 16)}` : ''} · uploaded by{' '}
+        {rec.rows.toLocaleString()} rows over {rec.durationMin} min{rec.startedAt ? `, started ${fmtStamp(rec.startedAt)}` : ''} · uploaded by{' '}
         {r.uploadedBy?.name ?? 'unknown'}, {fmtTime(r.uploadedAt)} · checked against revision {rec.checkedAgainst.number} ·{' '}
         <a className="text-slate underline" href={`/api/run-logs/${r.id}/file`}>raw file</a> <span className="num text-xs">sha256 {r.checksumSha256.slice(0, 12)}…</span> ·{' '}
         <Link className="text-slate underline" to={`/run-logs/${r.id}/record`}>printable review record</Link>
