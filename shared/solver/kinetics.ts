@@ -25,8 +25,13 @@ const SEED = ALPHA_SEED;
 /** α stays below 1 so (1 − α)^n and its derivatives stay finite. */
 export const ALPHA_MAX = 1 - 1e-9;
 const CAP = ALPHA_MAX;
-/** Default tolerance on α per call of advanceCure (absolute near α = 1, relative ×1e-3 near α = 0). */
-export const DEFAULT_CURE_TOLERANCE = 1e-9;
+/**
+ * Default tolerance on α per call of advanceCure: absolute near α = 1, relative to α + TOLERANCE_FLOOR near
+ * α = 0 (shared/solver/README.md, "Cure kinetics", says why this size).
+ */
+export const DEFAULT_CURE_TOLERANCE = 1e-8;
+/** Below this degree of cure the tolerance stops shrinking with α (1e-10 absolute at the default tolerance). */
+const TOLERANCE_FLOOR = 1e-3;
 
 // A module-private copy of an imported constant, for the reason given at SEED (and CommonJS interop wraps
 // an import in a getter).
@@ -325,7 +330,7 @@ export function advanceCure(k: PreparedKinetics, alpha: number, TK: number, dtS:
     if (h * f > 0.5 * room) h = (0.5 * room) / f;
     dormandPrince(k, K1, K2, K3, centre, upper, a, f, h, step);
     // Mixed tolerance: relative while α is tiny (an autocatalytic start amplifies early relative errors).
-    const tol = k.tolerance * (a + 1e-3);
+    const tol = k.tolerance * (a + TOLERANCE_FLOOR);
     const err = step.error;
     if (err <= tol) {
       if (lls && !upper && step.alpha >= SWITCH_ALPHA) {
@@ -527,7 +532,7 @@ export function advanceCureBatch(
     if (valid && f1[i] === 0) {
       alphaOut[j] = a; // an equilibrium at this temperature, as in advanceCure
       own[i] = 1;
-    } else if (valid && h * f1[i] <= 0.5 * room && err <= k.tolerance * (a + 1e-3) && !(lls && !upper && a5 >= SWITCH_ALPHA)) {
+    } else if (valid && h * f1[i] <= 0.5 * room && err <= k.tolerance * (a + TOLERANCE_FLOOR) && !(lls && !upper && a5 >= SWITCH_ALPHA)) {
       const next = a5 < CAP ? a5 : CAP;
       alphaOut[j] = next > a ? next : a;
       own[i] = 1;

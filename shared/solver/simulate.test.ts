@@ -3,8 +3,8 @@ import { describe, expect, it } from 'vitest';
 import { parseStudy, StudyInputError, type StudyParams, type StudyParamsInput } from '../schemas/study';
 import { cToK, minToS } from '../units';
 import { expectClose } from './test-support/expect-close';
-import { aluminiumPlate, demoCarbonFibre, demoResin180, invarPlate, leeLoosSpringerResin, quasiIsotropic, referenceStudy } from './demo-cards';
-import { PREVIEW_STEP_LIMITS, simulate, type SimulationResult } from './simulate';
+import { aluminiumPlate, demoCarbonFibre, demoResin180, demoStudies, invarPlate, leeLoosSpringerResin, quasiIsotropic, referenceStudy } from './demo-cards';
+import { DEFAULT_STEP_LIMITS, PREVIEW_STEP_LIMITS, simulate, type SimulationResult, type StepLimits } from './simulate';
 
 /** Linear interpolation of a history at time t (histories land exactly on segment ends). */
 function at(result: SimulationResult, series: Float64Array, tS: number): number {
@@ -306,6 +306,37 @@ describe('simulate: warpage against the step and the inputs', () => {
     const d = w.slice(1).map((x, i) => x / w[i] - 1);
     expect(Math.max(...d.map(Math.abs))).toBeGreaterThan(0.001); // the input matters…
     for (let i = 1; i < d.length; i++) expect(Math.abs(d[i] - d[i - 1]), `nudge ${i + 1}`).toBeLessThan(0.001); // …smoothly
+  });
+});
+
+describe('simulate: accuracy budget of the default step limits', () => {
+  // The budget of shared/solver/README.md, "Time step": what the default limits may cost against steps 16×
+  // shorter, on every demo study and on a 200-ply part on a fast ramp (the hardest exotherm we ship). The
+  // sizes are a thermocouple's and a gauge's resolution with a wide margin (common practice, no source).
+  const finer = (f: number): StepLimits => ({
+    maxAirChangeK: DEFAULT_STEP_LIMITS.maxAirChangeK * f,
+    maxCureChange: DEFAULT_STEP_LIMITS.maxCureChange * f,
+    maxPartChangeK: DEFAULT_STEP_LIMITS.maxPartChangeK * f,
+    maxStepS: DEFAULT_STEP_LIMITS.maxStepS * f,
+  });
+  const fast = demoStudies()[2].params;
+  const cases: [string, StudyParams][] = [
+    ...demoStudies().map((s): [string, StudyParams] => [s.name, s.params]),
+    ['200 plies on a 5 °C/min ramp', parseStudy({ ...fast, layup: { plies: quasiIsotropic(200) } })],
+  ];
+  it.each(cases)('%s: within 0.05 K, 1e-4 cure, 0.5 min, 2.5 % warpage and 0.2 % spring-in', (_, p) => {
+    const d = simulate(p).summary;
+    const f = simulate(p, { stepLimits: finer(1 / 16) }).summary;
+    for (const key of ['peakPartC', 'finalTgC', 'maxGradientC'] as const) expectClose(d[key], f[key], 0, 0.05);
+    expectClose(d.finalCureMin, f.finalCureMin, 0, 1e-4);
+    for (const key of ['gelTimeMin', 'vitrificationTimeMin', 'cycleMin'] as const) expectClose(d[key], f[key], 0, 0.5);
+    expectClose(d.warpageMm, f.warpageMm, 0.025);
+    expectClose(d.springInDeg, f.springInDeg, 0.002);
+  });
+
+  it('needs about a third of the steps of limits half this size', () => {
+    const p = referenceStudy();
+    expect(simulate(p).steps).toBeLessThan(0.6 * simulate(p, { stepLimits: finer(0.5) }).steps);
   });
 });
 
