@@ -26,12 +26,16 @@ const SEED = ALPHA_SEED;
 export const ALPHA_MAX = 1 - 1e-9;
 const CAP = ALPHA_MAX;
 /**
- * Default tolerance on α per call of advanceCure: absolute near α = 1, relative to α + TOLERANCE_FLOOR near
- * α = 0 (shared/solver/README.md, "Cure kinetics", says why this size).
+ * Default tolerance on α per call of advanceCure (shared/solver/README.md, "Cure kinetics", says why this
+ * size): absolute, except for a law that grows from its seed, where it shrinks with α (see toleranceFloor).
  */
 export const DEFAULT_CURE_TOLERANCE = 1e-8;
-/** Below this degree of cure the tolerance stops shrinking with α (1e-10 absolute at the default tolerance). */
-const TOLERANCE_FLOOR = 1e-3;
+/**
+ * A purely autocatalytic law grows from its seed and amplifies an early relative error into the whole curve,
+ * so its tolerance is tolerance·(α + SEEDED_TOLERANCE_FLOOR); with an α-independent term an early error stays
+ * as small as it was, and the absolute tolerance holds throughout.
+ */
+const SEEDED_TOLERANCE_FLOOR = 1e-3;
 
 // A module-private copy of an imported constant, for the reason given at SEED (and CommonJS interop wraps
 // an import in a getter).
@@ -66,6 +70,8 @@ export interface PreparedKinetics {
   readonly diffusionAlphaCTPerK: number;
   /** absolute tolerance on α per advanceCure call */
   readonly tolerance: number;
+  /** the tolerance at α is tolerance·min(1, α + toleranceFloor): 1 (absolute) unless the law starts from the seed */
+  readonly toleranceFloor: number;
 }
 
 export type KineticsInput = Pick<ResinCard, 'kinetics' | 'diffusion'>;
@@ -160,6 +166,7 @@ export function prepareKinetics(card: KineticsInput, options: { tolerance?: numb
     diffusionAlphaC0: d?.alphaC0 ?? 0,
     diffusionAlphaCTPerK: d?.alphaCTPerK ?? 0,
     tolerance,
+    toleranceFloor: formCode === KAMAL_SOUROUR && base.a1 === 0 ? SEEDED_TOLERANCE_FLOOR : 1,
   };
 }
 
@@ -329,8 +336,8 @@ export function advanceCure(k: PreparedKinetics, alpha: number, TK: number, dtS:
     const room = (lls && !upper ? k.b : 1) - a;
     if (h * f > 0.5 * room) h = (0.5 * room) / f;
     dormandPrince(k, K1, K2, K3, centre, upper, a, f, h, step);
-    // Mixed tolerance: relative while α is tiny (an autocatalytic start amplifies early relative errors).
-    const tol = k.tolerance * (a + TOLERANCE_FLOOR);
+    // Absolute tolerance; relative while α is tiny for a law that grows from its seed (see toleranceFloor).
+    const tol = k.tolerance * Math.min(1, a + k.toleranceFloor);
     const err = step.error;
     if (err <= tol) {
       if (lls && !upper && step.alpha >= SWITCH_ALPHA) {
@@ -532,7 +539,7 @@ export function advanceCureBatch(
     if (valid && f1[i] === 0) {
       alphaOut[j] = a; // an equilibrium at this temperature, as in advanceCure
       own[i] = 1;
-    } else if (valid && h * f1[i] <= 0.5 * room && err <= k.tolerance * (a + TOLERANCE_FLOOR) && !(lls && !upper && a5 >= SWITCH_ALPHA)) {
+    } else if (valid && h * f1[i] <= 0.5 * room && err <= k.tolerance * Math.min(1, a + k.toleranceFloor) && !(lls && !upper && a5 >= SWITCH_ALPHA)) {
       const next = a5 < CAP ? a5 : CAP;
       alphaOut[j] = next > a ? next : a;
       own[i] = 1;
