@@ -324,13 +324,13 @@ describe('simulate: accuracy budget of the default step limits', () => {
     ...demoStudies().map((s): [string, StudyParams] => [s.name, s.params]),
     ['200 plies on a 5 °C/min ramp', parseStudy({ ...fast, layup: { plies: quasiIsotropic(200) } })],
   ];
-  it.each(cases)('%s: within 0.05 K, 1e-4 cure, 0.5 min, 2.5 % warpage and 0.2 % spring-in', (_, p) => {
+  it.each(cases)('%s: within 0.05 K, 1e-4 cure, 0.5 min, 2.5 % (or 1 µm) warpage and 0.2 % spring-in', (_, p) => {
     const d = simulate(p).summary;
     const f = simulate(p, { stepLimits: finer(1 / 16) }).summary;
     for (const key of ['peakPartC', 'finalTgC', 'maxGradientC'] as const) expectClose(d[key], f[key], 0, 0.05);
     expectClose(d.finalCureMin, f.finalCureMin, 0, 1e-4);
     for (const key of ['gelTimeMin', 'vitrificationTimeMin', 'cycleMin'] as const) expectClose(d[key], f[key], 0, 0.5);
-    expectClose(d.warpageMm, f.warpageMm, 0.025);
+    expectClose(d.warpageMm, f.warpageMm, 0.025, 0.001);
     expectClose(d.springInDeg, f.springInDeg, 0.002);
   });
 

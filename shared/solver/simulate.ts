@@ -18,6 +18,11 @@ export const MODEL_VERSION = 'dwellform-solver 1.1.0'; // 1.1: shape reported at
 
 /** Far more steps than any valid study needs; reaching it means the step control has failed. */
 const MAX_STEPS = 5_000_000;
+/**
+ * Once every node has gelled the α limit is this many times larger: the tight limit is there to place the gel
+ * front smoothly (warpage follows a dragged ramp without steps); after it, cure moves Tg and stiffness only.
+ */
+const AFTER_GEL_CURE_FACTOR = 2;
 /** Energy-balance residual above which the summary warns (the model accepts < 0.5 %). */
 const ENERGY_WARNING = 0.005;
 
@@ -154,6 +159,7 @@ export function simulate(input: StudyParamsInput, options: SimulateOptions = {})
   let partRate = 0; // fastest part temperature change of the last step, K/s
   let fastNode = -1; // laminate node whose α moved most in the last step
   let lastCureRate = 0; // that node's mean cure rate over the last step, 1/s
+  let allGelled = false; // every laminate node past the gel point (the α limit relaxes: README, "Time step")
   while (!cycle.done) {
     if (steps >= MAX_STEPS) throw new Error(`simulate: gave up after ${MAX_STEPS} steps at t = ${t} s (step control failed)`);
     // Predict the step from the limits (shared/solver/README.md, "Time step"); a step may at most double the last unclipped one.
@@ -163,7 +169,7 @@ export function simulate(input: StudyParamsInput, options: SimulateOptions = {})
     // Fastest cure rate now: evaluated at the node that cured fastest in the last step (one rate evaluation
     // instead of one per node), never below that node's mean rate over the last step.
     const rate = fastNode < 0 ? maxCureRate(tc) : Math.max(lastCureRate, cureRate(tc.kinetics, tc.alpha[fastNode], tc.TK[fastNode]));
-    if (rate > 0) dt = Math.min(dt, limits.maxCureChange / rate);
+    if (rate > 0) dt = Math.min(dt, (allGelled ? AFTER_GEL_CURE_FACTOR * limits.maxCureChange : limits.maxCureChange) / rate);
     if (partRate > 0) dt = Math.min(dt, limits.maxPartChangeK / partRate);
     naturalDt = dt;
     // Land exactly on the next event; avoid leaving a sliver just before it.
@@ -189,7 +195,9 @@ export function simulate(input: StudyParamsInput, options: SimulateOptions = {})
     let minT = tc.TK[0];
     let maxT = tc.TK[0];
     let maxDAlpha = -1;
+    let minAlpha = 1;
     for (let j = 0; j < nodes; j++) {
+      if (tc.alpha[j] < minAlpha) minAlpha = tc.alpha[j];
       const T = tc.TK[j];
       if (T < minT) minT = T;
       if (T > maxT) maxT = T;
@@ -200,6 +208,7 @@ export function simulate(input: StudyParamsInput, options: SimulateOptions = {})
       }
     }
     lastCureRate = maxDAlpha / dt;
+    allGelled = minAlpha >= params.resin.gelPoint;
     observeStep(tracker, t, tc.TK, tc.alpha, 0, air.setpointK);
     record(t, air.airK, air.toolAirK, air.pressurePa, air.setpointK);
     advanceCycle(program, cycle, t, minT, maxT);
