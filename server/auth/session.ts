@@ -14,21 +14,25 @@ const SequelizeStore = connectSessionSequelize(session.Store);
  */
 /**
  * Reads of a session within a few seconds of the last one come from memory
- * (as JSON, parsed per request, so no two requests share objects); every
- * write or destroy through this store replaces or drops the entry.
+ * (as JSON, parsed per request, so no two requests share objects); concurrent
+ * misses share one query. Every write or destroy through this store replaces
+ * or drops the entry, and a destroy drops it again once the row is gone, so a
+ * read racing the sign-out cannot put the session back.
  */
 function cacheSessionReads(store: InstanceType<typeof SequelizeStore>) {
-  const cache = ttlCache<string, string>(5_000);
+  const cache = ttlCache<string, string | undefined>(5_000);
   const get = store.get.bind(store);
   const set = store.set.bind(store);
   const destroy = store.destroy.bind(store);
-  store.get = (sid, callback) => {
-    const hit = cache.get(sid);
-    if (hit !== undefined) return callback(null, JSON.parse(hit));
-    get(sid, (err, data) => {
-      if (!err && data) cache.set(sid, JSON.stringify(data));
-      callback(err, data);
+  const load = (sid: string) =>
+    new Promise<string | undefined>((resolve, reject) => {
+      get(sid, (err, data) => (err ? reject(err) : resolve(data ? JSON.stringify(data) : undefined)));
     });
+  store.get = (sid, callback) => {
+    cache.getOrLoad(sid, () => load(sid)).then(
+      (json) => callback(null, json === undefined ? null : JSON.parse(json)),
+      (err: unknown) => callback(err),
+    );
   };
   store.set = (sid, data, callback) => {
     cache.set(sid, JSON.stringify(data));
@@ -39,7 +43,10 @@ function cacheSessionReads(store: InstanceType<typeof SequelizeStore>) {
   };
   store.destroy = (sid, callback) => {
     cache.delete(sid);
-    destroy(sid, callback);
+    destroy(sid, (err?: unknown) => {
+      cache.delete(sid);
+      callback?.(err);
+    });
   };
 }
 
