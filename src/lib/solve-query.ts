@@ -10,9 +10,9 @@ import { solver } from './solver-client';
 export function solvedRevisionQueryOptions(ref: string, params: StudyParams | undefined) {
   return queryOptions({
     queryKey: ['revisions', 'solved', ref] as const,
-    queryFn: () => {
+    queryFn: async () => {
       if (!params) throw new Error(`revision ${ref} has no params to solve`);
-      return solver().simulate(params);
+      return (await solver().simulate(params)).result;
     },
     enabled: params !== undefined,
     staleTime: Infinity,

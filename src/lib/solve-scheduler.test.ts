@@ -1,21 +1,21 @@
 import { describe, expect, it } from 'vitest';
-import { createSolveScheduler } from './solve-scheduler';
+import { createSolveScheduler, type SolveAccuracy } from './solve-scheduler';
 
 /** A hand-driven frame clock and solver: each solve returns a promise the test settles. */
 function harness(extra: { cancelAfterMs?: number; withCancel?: boolean; leading?: boolean } = {}) {
   const frames: (() => void)[] = [];
-  const calls: { params: number; resolve: (r: string) => void; reject: (e: unknown) => void }[] = [];
-  const delivered: { result: string; params: number; tag: number }[] = [];
+  const calls: { params: number; accuracy: SolveAccuracy; resolve: (r: string) => void; reject: (e: unknown) => void }[] = [];
+  const delivered: { result: string; params: number; tag: number; accuracy: SolveAccuracy }[] = [];
   const busyLog: boolean[] = [];
   const timers: (() => void)[] = [];
   let clock = 0;
   let cancels = 0;
   const scheduler = createSolveScheduler<number, string>({
-    solve: (params) =>
+    solve: (params, accuracy) =>
       new Promise<string>((resolve, reject) => {
-        calls.push({ params, resolve, reject });
+        calls.push({ params, accuracy, resolve, reject });
       }),
-    onResult: (result, params, tag) => delivered.push({ result, params, tag }),
+    onResult: (result, params, tag, accuracy) => delivered.push({ result, params, tag, accuracy }),
     onBusy: (busy) => busyLog.push(busy),
     cancel: extra.withCancel ? () => (cancels += 1) : undefined,
     cancelAfterMs: extra.cancelAfterMs,
@@ -65,7 +65,7 @@ describe('solve scheduler', () => {
     expect(h.calls.map((c) => c.params)).toEqual([1, 3]);
     h.calls[1].resolve('result-3');
     await h.settle();
-    expect(h.delivered).toEqual([{ result: 'result-3', params: 3, tag: 103 }]);
+    expect(h.delivered).toEqual([{ result: 'result-3', params: 3, tag: 103, accuracy: 'full' }]);
   });
 
   it('drops a result that arrives after a newer request was made but before its frame', async () => {
@@ -158,5 +158,100 @@ describe('solve scheduler', () => {
     expect(h.calls).toHaveLength(1);
     h.flushFrame();
     expect(h.calls.map((c) => c.params)).toEqual([1, 2]);
+  });
+});
+
+describe('solve scheduler, quick look while dragging', () => {
+  const solved = (h: ReturnType<typeof harness>) => h.calls.map((c) => `${c.params}:${c.accuracy}`);
+  const shown = (h: ReturnType<typeof harness>) => h.delivered.map((d) => `${d.result}:${d.accuracy}`);
+
+  it('solves drag steps as previews and, once the drag ends, the last params again at full accuracy with the same tag', async () => {
+    const h = harness({ leading: true });
+    h.scheduler.request(1, 11, 'preview');
+    h.calls[0].resolve('p1');
+    await h.settle();
+    h.advance(20);
+    h.scheduler.request(2, 12, 'preview');
+    h.calls[1].resolve('p2');
+    await h.settle();
+    h.advance(20);
+    h.scheduler.endPreview();
+    expect(solved(h)).toEqual(['1:preview', '2:preview', '2:full']);
+    h.calls[2].resolve('f2');
+    await h.settle();
+    expect(shown(h)).toEqual(['p1:preview', 'p2:preview', 'f2:full']);
+    expect(h.delivered[2]).toMatchObject({ params: 2, tag: 12 });
+  });
+
+  it('never delivers a preview still running when the drag ends: the full answer is the last word', async () => {
+    const h = harness({ leading: true });
+    h.scheduler.request(1, 11, 'preview');
+    h.advance(20);
+    h.scheduler.endPreview();
+    h.flushFrame();
+    // The preview finishes after the full one was asked for: dropped, and the full solve starts.
+    h.calls[0].resolve('late-preview');
+    await h.settle();
+    expect(solved(h)).toEqual(['1:preview', '1:full']);
+    h.calls[1].resolve('full');
+    await h.settle();
+    expect(shown(h)).toEqual(['full:full']);
+  });
+
+  it('a cancelled preview of older params that settles after the full answer is ignored', async () => {
+    const h = harness({ withCancel: true, cancelAfterMs: 100 });
+    h.scheduler.request(1, 11, 'preview');
+    h.flushFrame();
+    h.scheduler.request(2, 12, 'preview');
+    h.scheduler.endPreview();
+    h.advance(150);
+    h.flushFrame();
+    expect(h.cancels()).toBe(1);
+    expect(solved(h)).toEqual(['1:preview', '2:full']);
+    h.calls[1].resolve('full-2');
+    await h.settle();
+    h.calls[0].resolve('preview-1');
+    await h.settle();
+    expect(shown(h)).toEqual(['full-2:full']);
+  });
+
+  it('a preview waiting for its frame when the drag ends is never solved; only the full one is', async () => {
+    const h = harness();
+    h.scheduler.request(1, 11, 'preview');
+    h.scheduler.endPreview();
+    h.flushFrame();
+    expect(solved(h)).toEqual(['1:full']);
+  });
+
+  it('ending a drag that changed nothing, or ending it twice, solves nothing more', async () => {
+    const h = harness({ leading: true });
+    h.scheduler.request(1, 11);
+    h.calls[0].resolve('f1');
+    await h.settle();
+    h.advance(20);
+    h.scheduler.endPreview();
+    expect(solved(h)).toEqual(['1:full']);
+    h.scheduler.request(2, 12, 'preview');
+    h.calls[1].resolve('p2');
+    await h.settle();
+    h.advance(20);
+    h.scheduler.endPreview();
+    h.scheduler.endPreview();
+    expect(solved(h)).toEqual(['1:full', '2:preview', '2:full']);
+  });
+
+  it('latest wins across accuracies: a new drag step after the full request replaces it', async () => {
+    const h = harness();
+    h.scheduler.request(1, 11, 'preview');
+    h.flushFrame();
+    h.scheduler.endPreview();
+    h.scheduler.request(2, 12, 'preview');
+    h.flushFrame();
+    h.calls[0].resolve('p1');
+    await h.settle();
+    expect(solved(h)).toEqual(['1:preview', '2:preview']);
+    h.calls[1].resolve('p2');
+    await h.settle();
+    expect(shown(h)).toEqual(['p2:preview']);
   });
 });

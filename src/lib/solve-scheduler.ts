@@ -16,11 +16,21 @@
  *   still shows an answer after at most two solves instead of starving.
  * - `onBusy(true)` fires only when a solve has taken longer than `busyAfterMs`
  *   (about a frame), so quick solves never flash an indicator.
+ * - Each request carries an accuracy: 'preview' for a quick look while a
+ *   handle is dragged, 'full' otherwise. `endPreview()` (the drag ended) asks
+ *   for a full solve of the latest params when the latest request was a
+ *   preview. Latest wins across both: a preview still running or waiting when
+ *   the full one is asked for is never delivered, so a preview of older
+ *   params can never replace the full answer.
  */
 
+import type { SolveAccuracy } from '../workers/solver-api';
+
+export type { SolveAccuracy };
+
 export type SolveSchedulerOptions<P, R> = {
-  solve: (params: P) => Promise<R>;
-  onResult: (result: R, params: P, tag: number) => void;
+  solve: (params: P, accuracy: SolveAccuracy) => Promise<R>;
+  onResult: (result: R, params: P, tag: number, accuracy: SolveAccuracy) => void;
   onError?: (error: unknown, params: P) => void;
   onBusy?: (busy: boolean) => void;
   /** Terminates the running solve; the next `solve` call must work afterwards. */
@@ -38,13 +48,15 @@ export type SolveSchedulerOptions<P, R> = {
 
 export type SolveScheduler<P> = {
   /** Ask for a solve of `params`; `tag` travels with it to `onResult` (e.g. an input sequence number). */
-  request: (params: P, tag?: number) => void;
+  request: (params: P, tag?: number, accuracy?: SolveAccuracy) => void;
+  /** The quick look is over: if the latest request was a preview, solve its params again at full accuracy. */
+  endPreview: () => void;
   /** Forget pending work and drop whatever is in flight. */
   dispose: () => void;
   readonly inFlight: boolean;
 };
 
-type Job<P> = { id: number; params: P; tag: number };
+type Job<P> = { id: number; params: P; tag: number; accuracy: SolveAccuracy };
 
 export function createSolveScheduler<P, R>(options: SolveSchedulerOptions<P, R>): SolveScheduler<P> {
   const busyAfterMs = options.busyAfterMs ?? 16;
@@ -55,6 +67,7 @@ export function createSolveScheduler<P, R>(options: SolveSchedulerOptions<P, R>)
   const clearTimer = options.clearTimer ?? ((h: unknown) => clearTimeout(h as ReturnType<typeof setTimeout>));
 
   let latestId = 0;
+  let latest: Job<P> | null = null;
   let frameQueued = false;
   let queued: Job<P> | null = null; // waiting for the next frame
   let pending: Job<P> | null = null; // waiting for the running solve to end
@@ -92,12 +105,12 @@ export function createSolveScheduler<P, R>(options: SolveSchedulerOptions<P, R>)
     armBusyTimer();
     let promise: Promise<R>;
     try {
-      promise = options.solve(job.params);
+      promise = options.solve(job.params, job.accuracy);
     } catch (error) {
       promise = Promise.reject(error);
     }
     promise.then(
-      (result) => finish(job, () => options.onResult(result, job.params, job.tag)),
+      (result) => finish(job, () => options.onResult(result, job.params, job.tag, job.accuracy)),
       (error) => finish(job, () => options.onError?.(error, job.params)),
     );
   }
@@ -134,23 +147,29 @@ export function createSolveScheduler<P, R>(options: SolveSchedulerOptions<P, R>)
     }
   }
 
+  function request(params: P, tag = 0, accuracy: SolveAccuracy = 'full') {
+    if (disposed) return;
+    latestId += 1;
+    const job = { id: latestId, params, tag, accuracy };
+    latest = job;
+    // Anything waiting is superseded now, even before the frame fires.
+    pending = null;
+    if (options.leading && !running && !frameQueued && now() - lastStartAt >= (options.frameMs ?? 16)) {
+      queued = null;
+      start(job);
+      return;
+    }
+    queued = job;
+    if (!frameQueued) {
+      frameQueued = true;
+      requestFrame(onFrame);
+    }
+  }
+
   return {
-    request(params, tag = 0) {
-      if (disposed) return;
-      latestId += 1;
-      const job = { id: latestId, params, tag };
-      // Anything waiting is superseded now, even before the frame fires.
-      pending = null;
-      if (options.leading && !running && !frameQueued && now() - lastStartAt >= (options.frameMs ?? 16)) {
-        queued = null;
-        start(job);
-        return;
-      }
-      queued = job;
-      if (!frameQueued) {
-        frameQueued = true;
-        requestFrame(onFrame);
-      }
+    request,
+    endPreview() {
+      if (latest?.accuracy === 'preview') request(latest.params, latest.tag, 'full');
     },
     dispose() {
       disposed = true;

@@ -6,7 +6,7 @@
 import { transfer } from 'comlink';
 import { convert, type Quantity, type UnitOf } from '../../shared/units';
 import type { StudyParams } from '../../shared/schemas/study';
-import { simulate, type SimulationResult } from '../../shared/solver/simulate';
+import { PREVIEW_STEP_LIMITS, simulate, type SimulationResult } from '../../shared/solver/simulate';
 
 /** Every typed-array buffer in a result, so the answer moves to the page instead of being copied. */
 export function resultBuffers(result: SimulationResult): ArrayBuffer[] {
@@ -26,16 +26,30 @@ export function resultBuffers(result: SimulationResult): ArrayBuffer[] {
   return [...buffers];
 }
 
+/** 'full': what stays on screen, is checked and exported; 'preview': a quick look while a handle is dragged. */
+export type SolveAccuracy = 'full' | 'preview';
+
+/** A solve's answer, with what it cost inside the worker (the page's round trip adds messaging and waiting). */
+export type Solved = { result: SimulationResult; accuracy: SolveAccuracy; workerMs: number };
+
 export const solverApi = {
   /** Unit conversion through the shared units module (the worker's smoke check). */
   convert(quantity: Quantity, value: number, from: string, to: string): number {
     return convert(quantity, value, from as UnitOf<Quantity>, to as UnitOf<Quantity>);
   },
 
-  /** One full simulation; the result's typed arrays are transferred, not copied. */
-  simulate(params: StudyParams): SimulationResult {
-    const result = simulate(params, { recordProfiles: true });
-    return transfer(result, resultBuffers(result));
+  /**
+   * One simulation; the result's typed arrays are transferred, not copied. 'full' (the default) solves with
+   * the solver's default step limits and records the through-thickness profiles: what stays on screen, is
+   * checked against the limits and exported. 'preview' is the quick look while a handle is dragged: the
+   * coarser PREVIEW_STEP_LIMITS (about half the steps) and no profiles.
+   */
+  simulate(params: StudyParams, accuracy: SolveAccuracy = 'full'): Solved {
+    const t0 = performance.now();
+    const result =
+      accuracy === 'preview' ? simulate(params, { stepLimits: PREVIEW_STEP_LIMITS }) : simulate(params, { recordProfiles: true });
+    const solved: Solved = { result, accuracy, workerMs: performance.now() - t0 };
+    return transfer(solved, resultBuffers(result));
   },
 };
 

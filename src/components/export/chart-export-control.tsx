@@ -1,5 +1,11 @@
-import { useState, type RefObject } from 'react';
+import { createContext, useContext, useState, type RefObject } from 'react';
 import { exportChartPng, exportChartSvg } from '../../lib/chart-export';
+
+/**
+ * Why chart exports are held right now, or null: asked when a button is pressed (the workspace holds them
+ * while its charts show a drag's quick look, so a file never carries a preview).
+ */
+export const ExportHoldContext = createContext<() => string | null>(() => null);
 
 /**
  * "SVG" and "PNG" buttons for the chart inside `target` (the first <svg> in it, or the element itself).
@@ -18,8 +24,14 @@ export function ChartExportControl({
 }) {
   const [error, setError] = useState<string | null>(null);
   const [working, setWorking] = useState(false);
+  const hold = useContext(ExportHoldContext);
 
   async function run(kind: 'svg' | 'png') {
+    const held = hold();
+    if (held) {
+      setError(held);
+      return;
+    }
     const root = target.current;
     const svg = root instanceof SVGSVGElement ? root : root?.querySelector('svg');
     if (!svg) {

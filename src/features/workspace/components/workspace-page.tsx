@@ -3,6 +3,7 @@ import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
 import { ApiError } from '../../../lib/api-client';
 import { Panel } from '../../../components/ui/panel';
+import { ExportHoldContext } from '../../../components/export/chart-export-control';
 import { TimeAxisProvider, makeTimeAxis, niceCycleEnd } from '../../../components/charts/time-axis';
 import { useElementWidth } from '../../../hooks/use-element-width';
 import { revisionParam, studyQueryOptions, useStudy, type WorkspaceStudy } from '../api/get-study';
@@ -11,7 +12,7 @@ import { cycleEndMin, cycleSpans } from '../model/cycle-geometry';
 import { useLiveSolve } from '../hooks/use-live-solve';
 import { useUndoKeys } from '../hooks/use-undo-keys';
 import { measurePainted, measureRendered } from '../perf/input-latency';
-import { resultsStore, selectResultEndMin, useResults } from '../stores/results-store';
+import { resultsStore, selectQuickLook, selectResultEndMin, useResults } from '../stores/results-store';
 import { selectDirty, studyEditorStore, useStudyEditor } from '../stores/study-editor-store';
 import { AssumptionsNote } from './assumptions-note';
 import { CycleEditor } from './cycle/cycle-editor';
@@ -61,11 +62,12 @@ function useWorkspaceTimeAxis(width: number) {
 function PaintProbe() {
   const tag = useResults((s) => s.resultTag);
   const result = useResults((s) => s.result);
+  const accuracy = useResults((s) => s.accuracy);
   useLayoutEffect(() => {
     if (!result) return;
     measureRendered();
-    measurePainted(tag);
-  }, [result, tag]);
+    measurePainted(tag, accuracy);
+  }, [result, tag, accuracy]);
   return null;
 }
 
@@ -124,6 +126,10 @@ function useLeaveGuard() {
   }, []);
 }
 
+/** Chart exports never carry a quick look: while one is on screen they say so instead. */
+const holdQuickLookExports = () =>
+  selectQuickLook(resultsStore.getState()) ? 'The chart shows a quick look while you drag; export once the full solve is on screen.' : null;
+
 function Workspace({ study, onReload }: { study: WorkspaceStudy; onReload: () => void }) {
   useLiveSolve();
   useUndoKeys();
@@ -132,39 +138,41 @@ function Workspace({ study, onReload }: { study: WorkspaceStudy; onReload: () =>
   const viewing = study.viewingRevision;
 
   return (
-    <div className="flex min-h-full flex-col" data-testid="workspace">
-      {viewing !== null && study.latestRevisionNumber !== null && (
-        <RevisionBanner studyId={study.id} revision={viewing} latest={study.latestRevisionNumber} canWrite={canWrite} />
-      )}
-      <WorkspaceToolbar offline={study.offline} canWrite={canWrite && viewing === null} onReload={onReload} />
-      <div className="grid flex-1 grid-cols-1 lg:grid-cols-[20rem_minmax(0,1fr)] 2xl:grid-cols-[20rem_minmax(0,1fr)_22rem]">
-        <SetupColumn />
-        <section aria-label="Cure cycle and results over time" className="min-w-0">
-          <KeyFigures />
-          <TimeColumn />
-          <PaintProbe />
-          <SolveCounter />
-        </section>
-        <aside aria-label="Verdicts and the part after cure" className="border-l border-rule bg-paper-raised/60 lg:col-span-2 2xl:col-span-1">
-          <div className="grid grid-cols-1 lg:grid-cols-2 2xl:grid-cols-1">
-            <Panel title="Process limits, verdict">
-              <LimitsVerdicts />
-            </Panel>
-            <Panel title="Through the thickness">
-              <ScrubControl />
-              <ThroughThickness />
-            </Panel>
-            <Panel title="Ply stresses after demould">
-              <WorkspacePlyStress />
-            </Panel>
-            <Panel title="Shape after demould">
-              <WarpView />
-            </Panel>
-          </div>
-          <AssumptionsNote />
-        </aside>
+    <ExportHoldContext.Provider value={holdQuickLookExports}>
+      <div className="flex min-h-full flex-col" data-testid="workspace">
+        {viewing !== null && study.latestRevisionNumber !== null && (
+          <RevisionBanner studyId={study.id} revision={viewing} latest={study.latestRevisionNumber} canWrite={canWrite} />
+        )}
+        <WorkspaceToolbar offline={study.offline} canWrite={canWrite && viewing === null} onReload={onReload} />
+        <div className="grid flex-1 grid-cols-1 lg:grid-cols-[20rem_minmax(0,1fr)] 2xl:grid-cols-[20rem_minmax(0,1fr)_22rem]">
+          <SetupColumn />
+          <section aria-label="Cure cycle and results over time" className="min-w-0">
+            <KeyFigures />
+            <TimeColumn />
+            <PaintProbe />
+            <SolveCounter />
+          </section>
+          <aside aria-label="Verdicts and the part after cure" className="border-l border-rule bg-paper-raised/60 lg:col-span-2 2xl:col-span-1">
+            <div className="grid grid-cols-1 lg:grid-cols-2 2xl:grid-cols-1">
+              <Panel title="Process limits, verdict">
+                <LimitsVerdicts />
+              </Panel>
+              <Panel title="Through the thickness">
+                <ScrubControl />
+                <ThroughThickness />
+              </Panel>
+              <Panel title="Ply stresses after demould">
+                <WorkspacePlyStress />
+              </Panel>
+              <Panel title="Shape after demould">
+                <WarpView />
+              </Panel>
+            </div>
+            <AssumptionsNote />
+          </aside>
+        </div>
       </div>
-    </div>
+    </ExportHoldContext.Provider>
   );
 }
 

@@ -4,7 +4,7 @@ import { BusyIndicator } from '../../../components/ui/busy-indicator';
 import { useForkRevision } from '../api/fork-revision';
 import { StaleRevisionError, saveRevision, useSaveRevision } from '../api/save-revision';
 import { validationOf } from '../model/study-validation';
-import { useResults } from '../stores/results-store';
+import { selectQuickLook, useResults } from '../stores/results-store';
 import { WorkspaceExports } from './workspace-exports';
 import {
   selectCanRedo,
@@ -31,7 +31,6 @@ export function WorkspaceToolbar({ offline, canWrite, onReload }: { offline: boo
     const v = s.params ? validationOf(s.params) : null;
     return v && !v.ok ? v.issues.length : 0;
   });
-  const busy = useResults((s) => s.busy);
   const solveError = useResults((s) => s.error);
   const [saving, setSaving] = useState(false);
 
@@ -63,7 +62,8 @@ export function WorkspaceToolbar({ offline, canWrite, onReload }: { offline: boo
           </span>
         )}
         <div className="ml-auto flex items-center gap-2">
-          <BusyIndicator busy={busy} />
+          <SolveAccuracyNote />
+          <SolveBusy />
           <WorkspaceExports />
           <button
             type="button"
@@ -106,6 +106,37 @@ export function WorkspaceToolbar({ offline, canWrite, onReload }: { offline: boo
       </div>
       {saving && <SaveForm onClose={() => setSaving(false)} onReload={onReload} />}
     </div>
+  );
+}
+
+/** Its own component: a solve's busy flag flips twice per drag step, and only this needs to follow it. */
+function SolveBusy() {
+  const busy = useResults((s) => s.busy);
+  return <BusyIndicator busy={busy} />;
+}
+
+/**
+ * Says when the figures and charts are a quick look (preview solves while a handle is dragged) and, to screen
+ * readers, when the full solve has replaced them. `data-accuracy` tells tests and the bench which is on screen.
+ */
+function SolveAccuracyNote() {
+  const quickLook = useResults(selectQuickLook);
+  const hasResult = useResults((s) => s.result !== null);
+  return (
+    <span
+      role="status"
+      aria-live="polite"
+      data-testid="solve-accuracy"
+      data-accuracy={quickLook ? 'preview' : 'full'}
+      className={quickLook ? 'rounded-full bg-saffron-soft px-2 py-0.5 text-xs text-ink' : 'sr-only'}
+      title={
+        quickLook
+          ? 'While you drag, the study is solved with coarser time steps for speed. When you let go it is solved in full; the verdicts, the profiles and every export come from that full solve.'
+          : undefined
+      }
+    >
+      {quickLook ? 'Quick look while dragging · full solve on release' : hasResult ? 'Results from the full solve' : ''}
+    </span>
   );
 }
 

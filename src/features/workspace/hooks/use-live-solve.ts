@@ -1,6 +1,6 @@
 import { useEffect } from 'react';
 import type { StudyParams } from '../../../../shared/schemas/study';
-import { createSolveScheduler } from '../../../lib/solve-scheduler';
+import { createSolveScheduler, type SolveAccuracy } from '../../../lib/solve-scheduler';
 import { restartSolver, solver } from '../../../lib/solver-client';
 import type { SimulationResult } from '../model/simulation-result';
 import { validationOf } from '../model/study-validation';
@@ -17,24 +17,26 @@ function messageOf(error: unknown): string {
 /**
  * Keeps the results following the edited study: every valid edit asks the
  * worker for a solve (latest wins, one per frame); invalid studies are never
- * sent, the last valid results stay on screen.
+ * sent, the last valid results stay on screen. While a handle is dragged the
+ * solves are previews (coarser steps, no profiles); when the drag ends the
+ * last params are solved once more at full accuracy.
  */
 export function useLiveSolve(): void {
   useEffect(() => {
     const results = resultsStore.getState();
     const scheduler = createSolveScheduler<StudyParams, Timed>({
-      solve: async (params) => {
+      solve: async (params, accuracy) => {
         resultsStore.getState().countSolve();
         const t0 = performance.now();
-        const result = await solver().simulate(params);
+        const { result, workerMs } = await solver().simulate(params, accuracy);
         const t1 = performance.now();
-        // The worker's share of the input-to-paint time (the bench reports both).
-        performance.measure?.(SOLVE_MEASURE, { start: t0, end: t1 });
+        // The solve's share of the input-to-paint time: the round trip, and inside it the worker's own time.
+        performance.measure?.(SOLVE_MEASURE, { start: t0, end: t1, detail: { accuracy, workerMs } });
         return { result, ms: t1 - t0 };
       },
-      onResult: ({ result, ms }, _params, tag) => {
+      onResult: ({ result, ms }, _params, tag, accuracy) => {
         markResultArrived();
-        resultsStore.getState().setResult(result, tag, ms);
+        resultsStore.getState().setResult(result, tag, ms, accuracy);
       },
       onError: (error) => resultsStore.getState().setError(messageOf(error)),
       onBusy: (busy) => resultsStore.getState().setBusy(busy),
@@ -43,20 +45,25 @@ export function useLiveSolve(): void {
       leading: true,
     });
 
+    const accuracy = (): SolveAccuracy => (resultsStore.getState().dragging ? 'preview' : 'full');
     const consider = (params: StudyParams | null, tag: number) => {
       if (!params) return;
       const v = validationOf(params);
-      if (v.ok) scheduler.request(v.params, tag);
+      if (v.ok) scheduler.request(v.params, tag, accuracy());
       else discardInputs(tag);
     };
 
     results.setError(null);
     consider(studyEditorStore.getState().params, studyEditorStore.getState().inputSeq);
-    const unsubscribe = studyEditorStore.subscribe((state, prev) => {
+    const unsubscribeEdits = studyEditorStore.subscribe((state, prev) => {
       if (state.params !== prev.params) consider(state.params, state.inputSeq);
     });
+    const unsubscribeDrag = resultsStore.subscribe((state, prev) => {
+      if (prev.dragging && !state.dragging) scheduler.endPreview();
+    });
     return () => {
-      unsubscribe();
+      unsubscribeEdits();
+      unsubscribeDrag();
       scheduler.dispose();
     };
   }, []);

@@ -1,12 +1,15 @@
 /**
  * Input-to-paint timing. Every edit marks an input; when the charts have
  * committed the result that includes it and the next frame has been drawn,
- * one `dwellform:input-to-paint` measure per input is recorded. The bench
+ * one `dwellform:input-to-paint` measure per input is recorded, its detail
+ * saying whether that paint showed a preview or a full solve. The bench
  * (bench/ui.ts) reads these measures from the page.
  */
 
+import type { SolveAccuracy } from '../../../lib/solve-scheduler';
+
 export const INPUT_TO_PAINT = 'dwellform:input-to-paint';
-/** Round trip of one solve through the worker, from the page's side. */
+/** Round trip of one solve through the worker, from the page's side; detail: { accuracy, workerMs }. */
 export const SOLVE_MEASURE = 'dwellform:solve';
 /** From a result's arrival to the charts' commit (React render of every chart). */
 export const RENDER_MEASURE = 'dwellform:render';
@@ -49,12 +52,12 @@ export function discardInputs(tag: number): void {
 }
 
 /** Call after the charts committed a result for inputs up to `tag`; measures once the next frame is drawn. */
-export function measurePainted(tag: number): void {
+export function measurePainted(tag: number, accuracy: SolveAccuracy): void {
   if (!hasPerformance() || open.length === 0 || typeof requestAnimationFrame !== 'function') return;
   requestAnimationFrame(() => {
     const end = performance.now();
     const done = open.filter((o) => o.seq <= tag);
     open = open.filter((o) => o.seq > tag);
-    for (const o of done) performance.measure(INPUT_TO_PAINT, { start: o.t, end });
+    for (const o of done) performance.measure(INPUT_TO_PAINT, { start: o.t, end, detail: { accuracy } });
   });
 }

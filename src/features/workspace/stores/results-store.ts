@@ -5,10 +5,19 @@
  */
 import { createStore, useStore } from 'zustand';
 import type { SimulationResult } from '../model/simulation-result';
+import type { SolveAccuracy } from '../../../lib/solve-scheduler';
 import { defaultExaggeration } from '../../../components/charts/exaggeration';
 
 export type ResultsState = {
+  /** what the charts and key figures show: a quick look while a handle is dragged, else the full solve */
   result: SimulationResult | null;
+  /** how `result` was solved */
+  accuracy: SolveAccuracy;
+  /**
+   * The last full-accuracy result: the limit verdicts, the through-thickness profiles (a preview records
+   * none) and every export read this one, never a preview.
+   */
+  fullResult: SimulationResult | null;
   /** input sequence number the result includes (for the paint measure) */
   resultTag: number;
   solveMs: number | null;
@@ -23,12 +32,12 @@ export type ResultsState = {
   exaggeration: number;
   /** number of solves the worker has been asked for (shown to the curious, counted by tests) */
   solveCount: number;
-  /** a handle is being dragged: scales hold still under the pointer */
+  /** a handle is being dragged (pointer, or a held arrow key): scales hold still, solves are previews */
   dragging: boolean;
 };
 
 export type ResultsActions = {
-  setResult: (result: SimulationResult, tag: number, solveMs: number) => void;
+  setResult: (result: SimulationResult, tag: number, solveMs: number, accuracy?: SolveAccuracy) => void;
   setBusy: (busy: boolean) => void;
   setError: (error: string | null) => void;
   countSolve: () => void;
@@ -40,6 +49,8 @@ export type ResultsActions = {
 
 const initial: ResultsState = {
   result: null,
+  accuracy: 'full',
+  fullResult: null,
   resultTag: 0,
   solveMs: null,
   busy: false,
@@ -55,9 +66,11 @@ export function createResultsStore() {
   return createStore<ResultsState & ResultsActions>()((set) => ({
     ...initial,
     // The first result of a study opens the profiles at the exotherm peak, the moment most worth a look.
-    setResult: (result, tag, solveMs) =>
+    setResult: (result, tag, solveMs, accuracy = 'full') =>
       set((s) => ({
         result,
+        accuracy,
+        ...(accuracy === 'full' ? { fullResult: result } : {}),
         resultTag: tag,
         solveMs,
         error: null,
@@ -79,6 +92,9 @@ export const resultsStore = createResultsStore();
 
 /** Minutes the last result runs to (0 before the first): where the scrubber and the time axis end. */
 export const selectResultEndMin = (s: ResultsState) => (s.result ? s.result.history.timeS[s.result.history.timeS.length - 1] / 60 : 0);
+
+/** The shown figures are a quick look (a preview solve while dragging); the full solve replaces them on release. */
+export const selectQuickLook = (s: ResultsState) => s.accuracy === 'preview';
 
 export function useResults<T>(selector: (state: ResultsState & ResultsActions) => T): T {
   return useStore(resultsStore, selector);

@@ -5,6 +5,7 @@ import userEvent from '@testing-library/user-event';
 import { referenceStudy } from '../../../../../shared/solver/demo-cards';
 import type { CycleSegment } from '../../../../../shared/schemas/study';
 import { CHART_MARGIN, TimeAxisProvider, makeTimeAxis } from '../../../../components/charts/time-axis';
+import { resultsStore } from '../../stores/results-store';
 import { studyEditorStore } from '../../stores/study-editor-store';
 import { CycleEditor } from './cycle-editor';
 
@@ -117,5 +118,43 @@ describe('dragging a handle', () => {
     expect(fireEvent(document, new Event('selectstart', { bubbles: true, cancelable: true }))).toBe(false);
     fireEvent.pointerUp(window, { clientX: 200, clientY: 100, pointerId: 7 });
     expect(fireEvent(document, new Event('selectstart', { bubbles: true, cancelable: true }))).toBe(true);
+  });
+});
+
+describe('a drag in progress (solved as quick looks until it ends)', () => {
+  beforeEach(() => {
+    studyEditorStore.getState().load({ studyId: 'test', name: 'test', baseRevision: 1 }, referenceStudy());
+    resultsStore.getState().reset();
+  });
+  const dragging = () => resultsStore.getState().dragging;
+  const holdMin = (i: number) => (segments()[i] as { holdMin: number }).holdMin;
+
+  it('a single arrow press is not a drag; a held (repeating) arrow is one until the key comes up', () => {
+    renderEditor();
+    const handle = screen.getByRole('slider', { name: 'Dwell 1 end' });
+    const hold0 = holdMin(1);
+    fireEvent.keyDown(handle, { key: 'ArrowRight' });
+    expect(dragging()).toBe(false);
+    fireEvent.keyUp(handle, { key: 'ArrowRight' });
+    fireEvent.keyDown(handle, { key: 'ArrowRight' });
+    fireEvent.keyDown(handle, { key: 'ArrowRight', repeat: true });
+    expect(dragging()).toBe(true);
+    fireEvent.keyDown(handle, { key: 'ArrowRight', repeat: true });
+    expect(holdMin(1)).toBe(hold0 + 4);
+    fireEvent.keyUp(handle, { key: 'ArrowRight' });
+    expect(dragging()).toBe(false);
+  });
+
+  it('a held arrow ends when focus leaves the handle; a pointer drag ends when the window loses focus', () => {
+    renderEditor();
+    const handle = screen.getByRole('slider', { name: 'Dwell 1 end' });
+    fireEvent.keyDown(handle, { key: 'ArrowLeft', repeat: true });
+    expect(dragging()).toBe(true);
+    fireEvent.blur(handle);
+    expect(dragging()).toBe(false);
+    fireEvent.pointerDown(handle, { clientX: 200, clientY: 100, button: 0, pointerId: 3 });
+    expect(dragging()).toBe(true);
+    fireEvent(window, new Event('blur'));
+    expect(dragging()).toBe(false);
   });
 });

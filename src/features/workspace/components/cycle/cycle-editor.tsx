@@ -76,6 +76,8 @@ export function CycleEditor({
   const [refusal, setRefusal] = useState<string | null>(null);
   const [dragging, setDragging] = useState<string | null>(null);
   const drag = useRef<DragState | null>(null);
+  /** an arrow key is held on a handle (the key repeats): a drag by keyboard until the key comes up */
+  const keyGesture = useRef(false);
   const svgRef = useRef<SVGSVGElement>(null);
   const frozenDomain = useRef<[number, number] | null>(null);
   const plotHeight = height - PLOT_TOP - 30;
@@ -172,6 +174,7 @@ export function CycleEditor({
       apply(d.handle, d.original, { minutes: dx / pxPerMin, celsius: -dy / pxPerC, axis: d.axis }, d.key, true);
     };
     const noSelect = (ev: Event) => ev.preventDefault();
+    // The drag ends on release, on a cancelled pointer, or when the window loses focus mid-drag (no release comes).
     const onUp = () => {
       drag.current = null;
       document.removeEventListener('selectstart', noSelect);
@@ -180,11 +183,13 @@ export function CycleEditor({
       window.removeEventListener('pointermove', onMove);
       window.removeEventListener('pointerup', onUp);
       window.removeEventListener('pointercancel', onUp);
+      window.removeEventListener('blur', onUp);
     };
     document.addEventListener('selectstart', noSelect);
     window.addEventListener('pointermove', onMove);
     window.addEventListener('pointerup', onUp);
     window.addEventListener('pointercancel', onUp);
+    window.addEventListener('blur', onUp);
   }
 
   function onHandleKeyDown(e: KeyboardEvent<SVGGElement>, handle: CycleHandle) {
@@ -193,7 +198,21 @@ export function CycleEditor({
     e.preventDefault();
     if (handle.kind === 'dwell-end' && delta.axis !== 'x') return;
     if (handle.kind === 'dwell-level' && delta.axis !== 'y') return;
+    // One press solves in full; a held key repeats like a drag, with quick looks until the key comes up.
+    if (e.repeat && !keyGesture.current && !drag.current) {
+      keyGesture.current = true;
+      setDragging(handleId(handle));
+      resultsStore.getState().setDragging(true);
+    }
     apply(handle, studyEditorStore.getState().params!, delta, `keys-${handleId(handle)}`, false);
+  }
+
+  /** Key up or focus gone: a held-key drag ends (and its last step is solved in full). */
+  function endKeyGesture() {
+    if (!keyGesture.current) return;
+    keyGesture.current = false;
+    setDragging(null);
+    resultsStore.getState().setDragging(false);
   }
 
   function onPlotPointerDown(e: ReactPointerEvent<SVGRectElement>) {
@@ -242,6 +261,7 @@ export function CycleEditor({
               cycleMin={cycleEndMin(spans)}
               onPointerDown={onHandlePointerDown}
               onKeyDown={onHandleKeyDown}
+              onKeyGestureEnd={endKeyGesture}
             />
           ))}
         </g>
@@ -351,10 +371,11 @@ type HandleProps = {
   cycleMin: number;
   onPointerDown: (e: ReactPointerEvent<SVGGElement>, h: CycleHandle) => void;
   onKeyDown: (e: KeyboardEvent<SVGGElement>, h: CycleHandle) => void;
+  onKeyGestureEnd: () => void;
 };
 
 /** Handle shapes say which way they move: a diamond moves both ways, bars move across their length. */
-function SpanHandles({ span, name, x, y, dragging, rate, cycleMin, onPointerDown, onKeyDown }: HandleProps) {
+function SpanHandles({ span, name, x, y, dragging, rate, cycleMin, onPointerDown, onKeyDown, onKeyGestureEnd }: HandleProps) {
   // Temperatures range over the plot's scale (where the handle can be dragged to); a dwell from 1 min up to
   // what the cycle's length allows.
   const [lowC, highC] = y.domain();
@@ -377,6 +398,7 @@ function SpanHandles({ span, name, x, y, dragging, rate, cycleMin, onPointerDown
           valueText={`${span.startC} °C`}
           onPointerDown={onPointerDown}
           onKeyDown={onKeyDown}
+          onKeyGestureEnd={onKeyGestureEnd}
           cursor="ns-resize"
         >
           <rect x={cx - 11} y={cy - 4} width={22} height={8} rx={3} />
@@ -392,6 +414,7 @@ function SpanHandles({ span, name, x, y, dragging, rate, cycleMin, onPointerDown
           valueText={`${minutes} min`}
           onPointerDown={onPointerDown}
           onKeyDown={onKeyDown}
+          onKeyGestureEnd={onKeyGestureEnd}
           cursor="ew-resize"
         >
           <rect x={x(span.endMin) - 4} y={cy - 11} width={8} height={22} rx={3} />
@@ -414,6 +437,7 @@ function SpanHandles({ span, name, x, y, dragging, rate, cycleMin, onPointerDown
       valueText={`${span.endC} °C at ${rate ?? '?'} °C/min`}
       onPointerDown={onPointerDown}
       onKeyDown={onKeyDown}
+      onKeyGestureEnd={onKeyGestureEnd}
       cursor="move"
     >
       <path d={`M${px},${py - 8}L${px + 8},${py}L${px},${py + 8}L${px - 8},${py}Z`} />
@@ -432,6 +456,7 @@ function Handle({
   valueText,
   onPointerDown,
   onKeyDown,
+  onKeyGestureEnd,
   cursor,
   children,
 }: {
@@ -445,6 +470,7 @@ function Handle({
   valueText: string;
   onPointerDown: HandleProps['onPointerDown'];
   onKeyDown: HandleProps['onKeyDown'];
+  onKeyGestureEnd: HandleProps['onKeyGestureEnd'];
   cursor: string;
   children: React.ReactNode;
 }) {
@@ -467,6 +493,8 @@ function Handle({
       strokeWidth={1.5}
       onPointerDown={(e) => onPointerDown(e, handle)}
       onKeyDown={(e) => onKeyDown(e, handle)}
+      onKeyUp={onKeyGestureEnd}
+      onBlur={onKeyGestureEnd}
     >
       {children}
     </g>

@@ -1,5 +1,5 @@
 import { memo } from 'react';
-import { useResults } from '../../stores/results-store';
+import { selectQuickLook, useResults } from '../../stores/results-store';
 import { formatSignificant } from '../../model/format';
 
 function Figure({ label, value, unit, testId, warn }: { label: string; value: string; unit: string; testId?: string; warn?: boolean }) {
@@ -28,11 +28,12 @@ export function SolveCounter() {
 export const KeyFigures = memo(function KeyFigures() {
   const result = useResults((s) => s.result);
   const solveMs = useResults((s) => s.solveMs);
+  const quickLook = useResults(selectQuickLook);
   if (!result) return <div className="h-14" />;
   const s = result.summary;
   const fail = (key: string) => s.limits.some((c) => c.key === key && !c.pass);
   return (
-    <dl className="flex flex-wrap divide-x divide-rule" aria-label="Key results">
+    <dl className="flex flex-wrap divide-x divide-rule" aria-label={quickLook ? 'Key results, quick look' : 'Key results'} data-steps={s.steps}>
       <Figure label="Final cure, least cured point" value={s.finalCureMin.toFixed(3)} unit="α" testId="final-cure-figure" warn={fail('minFinalCure')} />
       <Figure label="Final Tg" value={s.finalTgC.toFixed(1)} unit="°C" />
       <Figure label="Peak part temperature" value={s.peakPartC.toFixed(1)} unit="°C" />
@@ -40,7 +41,7 @@ export const KeyFigures = memo(function KeyFigures() {
       <Figure label="Warpage" value={formatSignificant(s.warpageMm)} unit="mm" testId="warpage-key-figure" warn={fail('maxWarpageMm')} />
       <Figure label="Spring-in" value={formatSignificant(s.springInDeg)} unit="°" warn={fail('maxSpringInDeg')} />
       <Figure label="Cycle to demould" value={s.cycleMin.toFixed(0)} unit="min" warn={fail('maxCycleMin')} />
-      <Figure label="Solve" value={solveMs === null ? '–' : solveMs.toFixed(0)} unit={`ms · ${s.steps} steps`} />
+      <Figure label={quickLook ? 'Quick-look solve' : 'Solve'} value={solveMs === null ? '–' : solveMs.toFixed(0)} unit={`ms · ${s.steps} steps`} />
     </dl>
   );
 });

@@ -1,16 +1,21 @@
 import { memo } from 'react';
-import { resultsStore, useResults } from '../../stores/results-store';
+import { resultsStore, selectQuickLook, useResults } from '../../stores/results-store';
 import { formatFigure, formatLimit } from '../../../../components/comparison/format-figure';
 
-/** Pass or fail per process limit, with the worst value and where and when; a row moves the scrubber there. */
+/**
+ * Pass or fail per process limit, with the worst value and where and when; a row moves the scrubber there.
+ * Always of a full solve: during a drag's quick look it stays on the cycle before the drag, and says so.
+ */
 export const LimitsVerdicts = memo(function LimitsVerdicts() {
-  const summary = useResults((s) => s.result?.summary);
+  const summary = useResults((s) => s.fullResult?.summary);
+  const quickLook = useResults(selectQuickLook);
   if (!summary) return <p className="text-sm text-ink-faint">No verdicts yet.</p>;
   const failed = summary.limits.filter((c) => !c.pass).length;
   return (
-    <div data-testid="limits-verdicts">
+    <div data-testid="limits-verdicts" data-accuracy="full">
       <p className={`mb-1 text-sm font-medium ${failed ? 'text-fault' : 'text-verdigris'}`}>
         {failed ? `${failed} of ${summary.limits.length} limits exceeded` : `All ${summary.limits.length} limits met`}
+        {quickLook && <span className="ml-1 text-xs font-normal text-ink-soft">(cycle before this drag; checked again on release)</span>}
       </p>
       <ul className="divide-y divide-rule/70">
         {summary.limits.map((c) => (
