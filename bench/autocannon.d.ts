@@ -14,6 +14,8 @@ declare module 'autocannon' {
     url: string;
     connections?: number;
     duration?: number;
+    /** a fixed number of requests instead of a duration */
+    amount?: number;
     headers?: Record<string, string>;
     requests?: Request[];
   }
@@ -23,7 +25,8 @@ declare module 'autocannon' {
     p99: number;
   }
   interface Result {
-    requests: Histogram;
+    /** per-second samples; `total` counts the completed requests */
+    requests: Histogram & { total: number };
     latency: Histogram;
     '2xx': number;
     non2xx: number;
@@ -32,7 +35,7 @@ declare module 'autocannon' {
   }
   function autocannon(options: Options): Promise<Result>;
   namespace autocannon {
-    export type { Result };
+    export type { Options, RawRequest, Result };
   }
   export default autocannon;
 }
