@@ -74,7 +74,7 @@ export function ChartFigure({
   const svgRef = useRef<SVGSVGElement>(null);
   const overlaid = runLabels.length > 1;
   return (
-    <figure className={`break-inside-avoid ${className}`} data-testid={testId}>
+    <figure className={`paint-island break-inside-avoid ${className}`} data-testid={testId}>
       <figcaption className="flex flex-wrap items-center gap-x-3 gap-y-0.5 px-2 pt-1 pb-0.5 text-xs text-ink-soft">
         <span className="text-[11px] font-semibold uppercase tracking-[0.08em]">{title}</span>
         {legend.map((entry) => (

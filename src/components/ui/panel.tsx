@@ -43,7 +43,7 @@ export function Panel({
     );
   }
   return (
-    <section className="border-b border-rule px-3 py-2" data-testid={testId} aria-label={title}>
+    <section className="paint-island border-b border-rule px-3 py-2" data-testid={testId} aria-label={title}>
       <h2 className="mb-1.5">{heading}</h2>
       {children}
     </section>

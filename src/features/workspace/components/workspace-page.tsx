@@ -104,7 +104,7 @@ function TimeColumn() {
 
 const SetupColumn = memo(function SetupColumn() {
   return (
-    <aside aria-label="Study setup" className="border-r border-rule bg-paper-raised/60 lg:max-h-[calc(100vh-7rem)] lg:overflow-y-auto">
+    <aside aria-label="Study setup" className="paint-island border-r border-rule bg-paper-raised/60 lg:max-h-[calc(100vh-7rem)] lg:overflow-y-auto">
       <MaterialPanel />
       <LayupPanel />
       <ToolPanel />

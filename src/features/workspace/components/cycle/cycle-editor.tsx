@@ -225,7 +225,7 @@ export function CycleEditor({
   const setpointD = vertices.map((v, i) => `${i ? 'L' : 'M'}${axis.x(v.timeMin)},${y(v.tempC)}`).join('');
 
   return (
-    <div className="relative">
+    <div className="paint-island relative">
       <svg
         ref={svgRef}
         width={axis.width}

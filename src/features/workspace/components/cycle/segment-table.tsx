@@ -33,7 +33,7 @@ export function SegmentTable() {
   const seg = (d: Draft<StudyParams>, i: number) => (d.cycle as Draft<SegmentCycle>).segments[i];
 
   return (
-    <div className="px-2" data-testid="segment-table">
+    <div className="paint-island px-2" data-testid="segment-table">
       <div className="mb-2 flex items-end gap-3">
         <div className="w-36">
           <NumberField

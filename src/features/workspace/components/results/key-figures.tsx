@@ -33,7 +33,7 @@ export const KeyFigures = memo(function KeyFigures() {
   const s = result.summary;
   const fail = (key: string) => s.limits.some((c) => c.key === key && !c.pass);
   return (
-    <dl className="flex flex-wrap divide-x divide-rule" aria-label={quickLook ? 'Key results, quick look' : 'Key results'} data-steps={s.steps}>
+    <dl className="paint-island flex flex-wrap divide-x divide-rule" aria-label={quickLook ? 'Key results, quick look' : 'Key results'} data-steps={s.steps}>
       <Figure label="Final cure, least cured point" value={s.finalCureMin.toFixed(3)} unit="α" testId="final-cure-figure" warn={fail('minFinalCure')} />
       <Figure label="Final Tg" value={s.finalTgC.toFixed(1)} unit="°C" />
       <Figure label="Peak part temperature" value={s.peakPartC.toFixed(1)} unit="°C" />
