@@ -1,13 +1,16 @@
+import { memo } from 'react';
 import type { CycleSegment, SegmentCycle, StudyParams } from '../../../../../shared/schemas/study';
 import type { Draft } from 'immer';
 import { NumberField } from '../../../../components/ui/number-field';
 import { SelectField } from '../../../../components/ui/select-field';
 import { cycleEndMin, cycleSpans, newSegment, splitSegment } from '../../model/cycle-geometry';
 import { HOLD_START_WORDS, segmentNames } from '../../../../../shared/compare/segment-names';
-import { issueAt } from '../../model/study-validation';
-import { useStudyEditor } from '../../stores/study-editor-store';
+import { useIssue } from '../../hooks/use-study-field';
+import { studyEditorStore, useStudyEditor } from '../../stores/study-editor-store';
 
-type Edit = (label: string, recipe: (d: Draft<StudyParams>) => void, key?: string) => void;
+const edit = (label: string, recipe: (d: Draft<StudyParams>) => void, key?: string) =>
+  studyEditorStore.getState().edit(label, recipe, key ? { coalesceKey: key } : undefined);
+const segmentsOf = (d: Draft<StudyParams>) => (d.cycle as Draft<SegmentCycle>).segments;
 
 const holdStarts = [
   { value: 'clock', label: HOLD_START_WORDS.clock },
@@ -21,16 +24,17 @@ const addChoices = [
   { value: 'cool', label: 'cool' },
 ] as const;
 
-/** Exact entry for the cycle the line editor draws: one row per segment. */
+/**
+ * Exact entry for the cycle the line editor draws: one row per segment. The table follows the cycle only;
+ * a row re-renders when its own segment, name, start temperature or issues change, so a drag on one
+ * handle redraws one row.
+ */
 export function SegmentTable() {
-  const params = useStudyEditor((s) => s.params);
-  const storeEdit = useStudyEditor((s) => s.edit);
-  if (!params || params.cycle.kind !== 'segments') return null;
-  const cycle = params.cycle;
+  const cycle = useStudyEditor((s) => s.params?.cycle);
+  const startIssue = useIssue('cycle.startC');
+  if (!cycle || cycle.kind !== 'segments') return null;
   const names = segmentNames(cycle.segments);
   const spans = cycleSpans(cycle.startC, cycle.segments);
-  const edit: Edit = (label, recipe, key) => storeEdit(label, recipe, key ? { coalesceKey: key } : undefined);
-  const seg = (d: Draft<StudyParams>, i: number) => (d.cycle as Draft<SegmentCycle>).segments[i];
 
   return (
     <div className="paint-island px-2" data-testid="segment-table">
@@ -40,7 +44,7 @@ export function SegmentTable() {
             label="Start temperature"
             unit="°C"
             value={cycle.startC}
-            issue={issueAt(params, 'cycle.startC')}
+            issue={startIssue}
             onCommit={(v) => edit(`Start temperature ${v} °C`, (d) => void ((d.cycle as Draft<SegmentCycle>).startC = v), 'cycle.startC')}
           />
         </div>
@@ -63,17 +67,7 @@ export function SegmentTable() {
         </thead>
         <tbody>
           {cycle.segments.map((s, i) => (
-            <SegmentRow
-              key={i}
-              index={i}
-              segment={s}
-              name={names[i]}
-              startC={spans[i].startC}
-              params={params}
-              edit={edit}
-              seg={seg}
-              count={cycle.segments.length}
-            />
+            <SegmentRow key={i} index={i} segment={s} name={names[i]} startC={spans[i].startC} count={cycle.segments.length} />
           ))}
         </tbody>
       </table>
@@ -81,30 +75,30 @@ export function SegmentTable() {
   );
 }
 
-function SegmentRow({
+const SegmentRow = memo(function SegmentRow({
   index: i,
   segment: s,
   name,
   startC,
-  params,
-  edit,
-  seg,
   count,
 }: {
   index: number;
   segment: CycleSegment;
   name: string;
   startC: number;
-  params: StudyParams;
-  edit: Edit;
-  seg: (d: Draft<StudyParams>, i: number) => Draft<CycleSegment>;
   count: number;
 }) {
   const path = `cycle.segments.${i}`;
-  const issue = (field: string) => issueAt(params, `${path}.${field}`);
-  const kindIssue = issue('kind');
+  const issues = {
+    kind: useIssue(`${path}.kind`),
+    holdMin: useIssue(`${path}.holdMin`),
+    bandC: useIssue(`${path}.bandC`),
+    rateCPerMin: useIssue(`${path}.rateCPerMin`),
+    targetC: useIssue(`${path}.targetC`),
+    pressureBar: useIssue(`${path}.pressureBar`),
+  };
   const set = (field: string, label: string, v: number | string) =>
-    edit(label, (d) => void ((seg(d, i) as unknown as Record<string, number | string>)[field] = v), `${path}.${field}`);
+    edit(label, (d) => void ((segmentsOf(d)[i] as unknown as Record<string, number | string>)[field] = v), `${path}.${field}`);
 
   return (
     <tr className="border-t border-rule align-top" data-testid={`segment-row-${i}`}>
@@ -115,7 +109,7 @@ function SegmentRow({
             compact
             label={`${name} kind`}
             value={s.kind}
-            issue={kindIssue}
+            issue={issues.kind}
             options={[
               { value: 'ramp', label: 'ramp' },
               { value: 'hold', label: 'dwell' },
@@ -123,7 +117,7 @@ function SegmentRow({
             ]}
             onChange={(kind) =>
               edit(`${name} becomes ${kind}`, (d) => {
-                (d.cycle as Draft<SegmentCycle>).segments[i] = newSegment(kind, startC, s.pressureBar);
+                segmentsOf(d)[i] = newSegment(kind, startC, s.pressureBar);
               })
             }
           />
@@ -132,7 +126,7 @@ function SegmentRow({
       {s.kind === 'hold' ? (
         <>
           <td className="py-1 pr-2">
-            <NumberField compact label={`${name} length`} unit="min" value={s.holdMin} issue={issue('holdMin')} onCommit={(v) => set('holdMin', `${name} length ${v} min`, v)} />
+            <NumberField compact label={`${name} length`} unit="min" value={s.holdMin} issue={issues.holdMin} onCommit={(v) => set('holdMin', `${name} length ${v} min`, v)} />
           </td>
           <td className="py-1 pr-2">
             <SelectField
@@ -149,7 +143,7 @@ function SegmentRow({
               label={`${name} band`}
               unit="±°C"
               value={s.bandC}
-              issue={issue('bandC')}
+              issue={issues.bandC}
               onCommit={(v) => set('bandC', `${name} band ${v} °C`, v)}
               // The band only decides when a lagging-part dwell starts; a clock-started dwell never reads it.
               disabledReason={s.start === 'clock' ? 'not used: this dwell starts on the clock' : undefined}
@@ -165,7 +159,7 @@ function SegmentRow({
               unit="°C/min"
               step={0.1}
               value={s.rateCPerMin}
-              issue={issue('rateCPerMin')}
+              issue={issues.rateCPerMin}
               testId={`segment-${i}-rate`}
               onCommit={(v) => set('rateCPerMin', `${name} rate ${v} °C/min`, v)}
             />
@@ -176,7 +170,7 @@ function SegmentRow({
               label={s.kind === 'cool' && i === count - 1 ? `${name} demould temperature` : `${name} target`}
               unit="°C"
               value={s.targetC}
-              issue={issue('targetC')}
+              issue={issues.targetC}
               onCommit={(v) => set('targetC', `${name} target ${v} °C`, v)}
             />
           </td>
@@ -184,7 +178,7 @@ function SegmentRow({
         </>
       )}
       <td className="py-1 pr-2">
-        <NumberField compact label={`${name} pressure`} unit="bar" step={0.5} value={s.pressureBar} issue={issue('pressureBar')} onCommit={(v) => set('pressureBar', `${name} pressure ${v} bar`, v)} />
+        <NumberField compact label={`${name} pressure`} unit="bar" step={0.5} value={s.pressureBar} issue={issues.pressureBar} onCommit={(v) => set('pressureBar', `${name} pressure ${v} bar`, v)} />
       </td>
       <td className="py-1">
         <div className="flex items-center gap-1">
@@ -195,7 +189,7 @@ function SegmentRow({
             title="Split into two halves"
             onClick={() =>
               edit(`Split ${name}`, (d) => {
-                const segs = (d.cycle as Draft<SegmentCycle>).segments;
+                const segs = segmentsOf(d);
                 segs.splice(i, 1, ...splitSegment(s, startC));
               })
             }
@@ -207,7 +201,7 @@ function SegmentRow({
             className="rounded border border-rule px-1.5 py-0.5 text-xs hover:bg-fault-soft disabled:opacity-40"
             aria-label={`Remove ${name}`}
             disabled={count <= 1}
-            onClick={() => edit(`Remove ${name}`, (d) => void (d.cycle as Draft<SegmentCycle>).segments.splice(i, 1))}
+            onClick={() => edit(`Remove ${name}`, (d) => void segmentsOf(d).splice(i, 1))}
           >
             remove
           </button>
@@ -220,7 +214,7 @@ function SegmentRow({
               if (!kind) return;
               const endC = s.kind === 'hold' ? startC : s.targetC;
               edit(`Add ${kind} after ${name}`, (d) =>
-                void (d.cycle as Draft<SegmentCycle>).segments.splice(i + 1, 0, newSegment(kind, endC, s.pressureBar)),
+                void segmentsOf(d).splice(i + 1, 0, newSegment(kind, endC, s.pressureBar)),
               );
             }}
           >
@@ -234,4 +228,4 @@ function SegmentRow({
       </td>
     </tr>
   );
-}
+});
