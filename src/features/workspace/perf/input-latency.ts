@@ -36,11 +36,16 @@ const MAX_OPEN = 500;
 
 const hasPerformance = () => typeof performance !== 'undefined' && typeof performance.measure === 'function';
 
-/** Call at the start of handling an input; returns its sequence number. */
-export function markInput(): number {
+/**
+ * Call when an input is taken in; returns its sequence number. `at` is when the input happened (an event's
+ * timeStamp: the measure then includes the time the event waited and its handling); default now. A time on
+ * another clock (jsdom stamps events with the wall clock) is not used.
+ */
+export function markInput(at?: number): number {
   seq += 1;
   if (hasPerformance()) {
-    open.push({ seq, t: performance.now() });
+    const now = performance.now();
+    open.push({ seq, t: at !== undefined && at <= now ? at : now });
     if (open.length > MAX_OPEN) open = open.slice(-MAX_OPEN);
   }
   return seq;

@@ -131,4 +131,26 @@ describe('study editor store', () => {
     expect(store.getState().params).toBe(before);
     expect(store.getState().past).toHaveLength(0);
   });
+
+  it('an edit its check refuses changes nothing and says why; an accepted one is kept', () => {
+    const store = loaded();
+    const before = store.getState().params;
+    const seen: number[] = [];
+    const refusal = store.getState().edit('limit', (d) => void (d.limits.maxWarpageMm = -1), {
+      refuse: (next, current) => {
+        seen.push(next.limits.maxWarpageMm, current.limits.maxWarpageMm);
+        return 'no negative warpage';
+      },
+    });
+    expect(refusal).toBe('no negative warpage');
+    expect(seen).toEqual([-1, before!.limits.maxWarpageMm]);
+    expect(store.getState().params).toBe(before);
+    expect(store.getState().past).toHaveLength(0);
+    expect(selectDirty(store.getState())).toBe(false);
+
+    expect(store.getState().edit('limit', (d) => void (d.limits.maxWarpageMm = 0.4), { refuse: () => null })).toBeNull();
+    expect(store.getState().params!.limits.maxWarpageMm).toBe(0.4);
+    expect(store.getState().past).toHaveLength(1);
+  });
 });
+

@@ -37,6 +37,10 @@ export type EditOptions = {
   coalesceKey?: string;
   /** fold regardless of elapsed time (a drag gesture) */
   gesture?: boolean;
+  /** why the edited study must not be kept (null: keep it); asked before anything changes */
+  refuse?: (next: StudyParams, current: StudyParams) => string | null;
+  /** when the input behind the edit happened (its event's timeStamp), for the input-to-paint measure; default now */
+  inputAt?: number;
 };
 
 export type StudyEditorState = {
@@ -54,7 +58,8 @@ export type StudyEditorState = {
 
 export type StudyEditorActions = {
   load: (meta: StudyMeta, params: StudyParams) => void;
-  edit: (label: string, recipe: (draft: Draft<StudyParams>) => void, options?: EditOptions) => void;
+  /** Applies the edit; returns why it was refused (options.refuse), else null. */
+  edit: (label: string, recipe: (draft: Draft<StudyParams>) => void, options?: EditOptions) => string | null;
   undo: () => void;
   redo: () => void;
   markSaved: (revision: number) => void;
@@ -80,11 +85,14 @@ export function createStudyEditorStore(now: () => number = () => Date.now()) {
     },
 
     edit(label, recipe, options = {}) {
+      const inputAt = options.inputAt ?? (typeof performance === 'undefined' ? undefined : performance.now());
       const { meta, params, past, savedId } = get();
-      if (!params || meta?.readOnly) return;
+      if (!params || meta?.readOnly) return null;
       const [next, patches, inverse] = produceWithPatches(params, recipe);
-      if (patches.length === 0) return;
-      const inputSeq = markInput();
+      if (patches.length === 0) return null;
+      const refusal = options.refuse?.(next, params) ?? null;
+      if (refusal !== null) return refusal;
+      const inputSeq = markInput(inputAt);
       const top = past[past.length - 1];
       const key = options.coalesceKey ?? null;
       const t = now();
@@ -107,6 +115,7 @@ export function createStudyEditorStore(now: () => number = () => Date.now()) {
         const entry: HistoryEntry = { id: nextId++, label, coalesceKey: key, at: t, patches, inverse };
         set({ params: next, past: [...past, entry], future: [], headId: entry.id, inputSeq });
       }
+      return null;
     },
 
     undo() {

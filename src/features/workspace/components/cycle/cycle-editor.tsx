@@ -1,6 +1,5 @@
 import { memo, useMemo, useRef, useState, type KeyboardEvent, type PointerEvent as ReactPointerEvent, type RefObject } from 'react';
 import { kToC } from '../../../../../shared/units';
-import { produce } from 'immer';
 import { scaleLinear, type ScaleLinear } from 'd3-scale';
 import { MAX_CYCLE_MIN, type StudyParams } from '../../../../../shared/schemas/study';
 import { TimeTicks, ValueTicks, useTimeAxis } from '../../../../components/charts/time-axis';
@@ -96,12 +95,12 @@ export function CycleEditor({
       const mid = result.history.midPlaneK;
       for (let i = 0; i < mid.length; i++) hi = Math.max(hi, kToC(mid[i]));
     }
-    const next: [number, number] = [Math.floor(lo / 50) * 50, Math.ceil((hi + 25) / 50) * 50];
+    let next: [number, number] = [Math.floor(lo / 50) * 50, Math.ceil((hi + 25) / 50) * 50];
+    const held = frozenDomain.current;
     // Hold the scale still under a dragging pointer; only grow it when a handle would leave the plot.
-    if (dragging && frozenDomain.current) {
-      return [Math.min(frozenDomain.current[0], next[0]), Math.max(frozenDomain.current[1], next[1])];
-    }
-    return next;
+    if (dragging && held) next = [Math.min(held[0], next[0]), Math.max(held[1], next[1])];
+    // The same range keeps the same scale object, so the traces (memoised on it) skip an edit that moves no axis.
+    return held && held[0] === next[0] && held[1] === next[1] ? held : next;
   }, [spans, result, dragging, temperatureDomainC]);
   frozenDomain.current = domain;
 
@@ -120,7 +119,8 @@ export function CycleEditor({
   const pxPerMin = axis.x(1) - axis.x(0);
   const pxPerC = y(0) - y(1);
 
-  function apply(handle: CycleHandle, original: StudyParams, delta: HandleDelta, key: string, gesture: boolean) {
+  /** `inputAt`: the event's timeStamp, where the input-to-paint measure starts. */
+  function apply(handle: CycleHandle, original: StudyParams, delta: HandleDelta, key: string, gesture: boolean, inputAt: number) {
     if (studyEditorStore.getState().meta?.readOnly) {
       setRefusal('This is an earlier revision, read only: restore it as a new revision to change it.');
       return;
@@ -130,15 +130,17 @@ export function CycleEditor({
       setRefusal(edit.reason);
       return;
     }
-    const current = studyEditorStore.getState().params!;
-    const candidate = produce(current, edit.recipe);
-    const problem = newCycleIssues(current, candidate);
-    if (problem) {
-      setRefusal(`Not applied: ${problem}`);
-      return;
-    }
-    setRefusal(null);
-    studyEditorStore.getState().edit(edit.label, edit.recipe, { coalesceKey: key, gesture });
+    // The store produces the edited study once; it is checked, and validated, before it is kept.
+    const refused = studyEditorStore.getState().edit(edit.label, edit.recipe, {
+      coalesceKey: key,
+      gesture,
+      inputAt,
+      refuse: (next, current) => {
+        const problem = newCycleIssues(current, next);
+        return problem ? `Not applied: ${problem}` : null;
+      },
+    });
+    setRefusal(refused);
   }
 
   function onHandlePointerDown(e: ReactPointerEvent<SVGGElement>, handle: CycleHandle) {
@@ -171,7 +173,7 @@ export function CycleEditor({
         if (Math.max(Math.abs(dx), Math.abs(dy)) < AXIS_LOCK_PX) return;
         d.axis = Math.abs(dx) >= Math.abs(dy) ? 'x' : 'y';
       }
-      apply(d.handle, d.original, { minutes: dx / pxPerMin, celsius: -dy / pxPerC, axis: d.axis }, d.key, true);
+      apply(d.handle, d.original, { minutes: dx / pxPerMin, celsius: -dy / pxPerC, axis: d.axis }, d.key, true, ev.timeStamp);
     };
     const noSelect = (ev: Event) => ev.preventDefault();
     // The drag ends on release, on a cancelled pointer, or when the window loses focus mid-drag (no release comes).
@@ -204,7 +206,7 @@ export function CycleEditor({
       setDragging(handleId(handle));
       resultsStore.getState().setDragging(true);
     }
-    apply(handle, studyEditorStore.getState().params!, delta, `keys-${handleId(handle)}`, false);
+    apply(handle, studyEditorStore.getState().params!, delta, `keys-${handleId(handle)}`, false, e.timeStamp);
   }
 
   /** Key up or focus gone: a held-key drag ends (and its last step is solved in full). */
