@@ -57,6 +57,39 @@ test('dragging the second dwell’s end with the mouse shortens it and the final
   await expect(warpage).not.toHaveText(warpageBefore!);
 });
 
+test('while a handle is dragged the figures are a marked quick look; once it is let go the full solve is on screen', async ({ page }) => {
+  await openDemoStudy(page);
+  const accuracy = page.getByTestId('solve-accuracy');
+  const keyFigures = page.locator('dl[data-steps]');
+  const verdicts = page.getByTestId('limits-verdicts');
+  const csv = page.getByRole('button', { name: 'CSV' });
+  await expect(accuracy).toHaveAttribute('data-accuracy', 'full');
+  await expect(csv).toBeEnabled();
+
+  const handle = page.getByRole('slider', { name: 'Dwell 2 end' });
+  const box = (await handle.boundingBox())!;
+  const x = box.x + box.width / 2;
+  const y = box.y + box.height / 2;
+  await page.mouse.move(x, y);
+  await page.mouse.down();
+  for (let i = 1; i <= 10; i++) await page.mouse.move(x - i * 8, y);
+
+  // Held: a quick look, said so; the verdicts stay on the last full solve and the CSV waits.
+  await expect(accuracy).toHaveAttribute('data-accuracy', 'preview');
+  await expect(accuracy).toHaveText(/quick look/i);
+  await expect(verdicts).toContainText('cycle before this drag');
+  await expect(csv).toBeDisabled();
+  const previewSteps = Number(await keyFigures.getAttribute('data-steps'));
+
+  await page.mouse.up();
+  await expect(accuracy).toHaveAttribute('data-accuracy', 'full');
+  await expect(verdicts).not.toContainText('cycle before this drag');
+  await expect(csv).toBeEnabled();
+  // The same study, now solved with the default (finer) time steps.
+  const fullSteps = Number(await keyFigures.getAttribute('data-steps'));
+  expect(fullSteps).toBeGreaterThan(previewSteps * 1.3);
+});
+
 test('an invalid ramp rate is marked with its reason and never reaches the solver', async ({ page }) => {
   await openDemoStudy(page);
   const solves = page.getByTestId('solve-count');
