@@ -35,7 +35,7 @@ export function WorkspaceToolbar({ offline, canWrite, onReload }: { offline: boo
   const [saving, setSaving] = useState(false);
 
   return (
-    <div className="sticky top-0 z-10 border-b border-rule bg-paper-raised/95 backdrop-blur">
+    <div className="sticky top-0 z-10 border-b border-rule bg-paper-raised">
       <div className="flex flex-wrap items-center gap-2 px-3 py-1.5">
         <h1 className="text-base font-semibold tracking-tight">{meta?.name ?? 'Study'}</h1>
         <span className="num text-xs text-ink-faint">
