@@ -53,11 +53,11 @@ export interface StepLimits {
   maxStepS: number;
 }
 
-export const DEFAULT_STEP_LIMITS: StepLimits = { maxAirChangeK: 5, maxCureChange: 0.0075, maxPartChangeK: 4, maxStepS: 300 };
+export const DEFAULT_STEP_LIMITS: StepLimits = { maxAirChangeK: 5, maxCureChange: 0.0075, maxPartChangeK: 5, maxStepS: 600 };
 
 /**
  * Coarser limits for a quick look while the user drags: about half the steps. The loop is second order in the
  * step, so results move by roughly 4× the (already small) step error of the defaults; re-solve with the
  * defaults when the drag ends. Both sets are sized in shared/solver/README.md, "Time step".
  */
-export const PREVIEW_STEP_LIMITS: StepLimits = { maxAirChangeK: 10, maxCureChange: 0.015, maxPartChangeK: 8, maxStepS: 600 };
+export const PREVIEW_STEP_LIMITS: StepLimits = { maxAirChangeK: 10, maxCureChange: 0.015, maxPartChangeK: 10, maxStepS: 1200 };
