@@ -316,8 +316,13 @@ export function advanceCure(k: PreparedKinetics, alpha: number, TK: number, dtS:
   if (!(dtS >= 0) || !Number.isFinite(dtS)) throw new RangeError(`advanceCure: time step ${String(dtS)} s: allowed ≥ 0 and finite`);
   if (!(TK > 0) || !Number.isFinite(TK)) throw new RangeError(`advanceCure: temperature ${String(TK)} K: allowed > 0 and finite`);
   if (!(alpha >= 0 && alpha <= 1)) throw new RangeError(`advanceCure: degree of cure ${String(alpha)}: allowed 0..1`);
-  let a = alpha < CAP ? alpha : CAP;
+  const a = alpha < CAP ? alpha : CAP;
   if (dtS === 0) return a;
+  return integrateCure(k, a, TK, dtS, dtS);
+}
+
+/** The sub-step loop of advanceCure from α = a (already capped), with hFirst as the first trial step. */
+function integrateCure(k: PreparedKinetics, a: number, TK: number, dtS: number, hFirst: number): number {
   const K1 = arrhenius(k.a1, k.e1OverR, TK);
   const K2 = arrhenius(k.a2, k.e2OverR, TK);
   const K3 = arrhenius(k.a3, k.e3OverR, TK);
@@ -326,7 +331,7 @@ export function advanceCure(k: PreparedKinetics, alpha: number, TK: number, dtS:
   let upper = isUpperBranch(k, a);
   let f = rateAt(k, K1, K2, K3, centre, a, upper);
   let t = 0;
-  let h = dtS;
+  let h = hFirst;
   for (let i = 0; i < MAX_SUBSTEPS; i++) {
     // At a fixed temperature the equation is autonomous: a zero rate is an equilibrium.
     if (f === 0) return a;
@@ -353,11 +358,15 @@ export function advanceCure(k: PreparedKinetics, alpha: number, TK: number, dtS:
       }
       if (t >= dtS * (1 - 1e-14)) return a;
     }
-    // Standard step-size control for a 5th-order method (Hairer, Nørsett & Wanner, Solving ODEs I, §II.4).
-    const factor = err === 0 ? 5 : 0.9 * Math.pow(tol / err, 0.2);
-    h *= factor > 5 ? 5 : factor < 0.2 ? 0.2 : factor;
+    h *= stepFactor(err, tol);
   }
   throw new Error(`advanceCure: no convergence within ${MAX_SUBSTEPS} sub-steps (α ${a}, T ${TK} K, dt ${dtS} s)`);
+}
+
+/** Standard step-size control for a 5th-order method (Hairer, Nørsett & Wanner, Solving ODEs I, §II.4). */
+function stepFactor(err: number, tol: number): number {
+  const factor = err === 0 ? 5 : 0.9 * Math.pow(tol / err, 0.2);
+  return factor > 5 ? 5 : factor < 0.2 ? 0.2 : factor;
 }
 
 // Length of the step from α (< 0.3) that ends exactly on the switch: Newton on g(s) = Φ(s) − 0.3 with
@@ -398,11 +407,21 @@ export interface CureBatch {
   readonly g1: Float64Array;
   /** 1 where the node was finished by the batch's own step (so the stage values describe it), 0 otherwise */
   readonly own: Uint8Array;
+  /** per listed node: the trial step, s */
+  readonly h: Float64Array;
+  /** the nodes still sub-stepping (continueCureBatch): time reached, s, and where they sit in the list */
+  readonly t: Float64Array;
+  readonly at: Int32Array;
+  /** scratch of the same shape for those nodes (a batch has one, its own has none) */
+  readonly retry: CureBatch | null;
 }
 
-export function createCureBatch(size: number): CureBatch {
+export function createCureBatch(size: number, withRetry = true): CureBatch {
   const a = () => new Float64Array(size);
-  return { size, a: a(), K1: a(), K2: a(), K3: a(), centre: a(), f: [a(), a(), a(), a(), a(), a(), a()], x: a(), T: a(), g0: a(), g1: a(), own: new Uint8Array(size) };
+  return {
+    size, a: a(), K1: a(), K2: a(), K3: a(), centre: a(), f: [a(), a(), a(), a(), a(), a(), a()], x: a(), T: a(), g0: a(), g1: a(),
+    own: new Uint8Array(size), h: a(), t: a(), at: new Int32Array(size), retry: withRetry ? createCureBatch(size, false) : null,
+  };
 }
 
 // The batch works stage by stage over arrays. Its loops call the rate helpers above with plain numbers, which
@@ -498,34 +517,11 @@ export function advanceCureBatch(
     x[i] = a0[i];
   }
   stageConstants(k, w, count);
-  // The stages of dormandPrince(), each across all the nodes, with the same arithmetic (one call site of
-  // stageRates, so that it stays inlined).
-  const [f1, f2, f3, f4, f5, f6, f7] = w.f;
-  for (let stage = 0; stage < 7; stage++) {
-    switch (stage) {
-      case 1:
-        for (let i = 0; i < count; i++) x[i] = a0[i] + h * (A21 * f1[i]);
-        break;
-      case 2:
-        for (let i = 0; i < count; i++) x[i] = a0[i] + h * (A31 * f1[i] + A32 * f2[i]);
-        break;
-      case 3:
-        for (let i = 0; i < count; i++) x[i] = a0[i] + h * (A41 * f1[i] + A42 * f2[i] + A43 * f3[i]);
-        break;
-      case 4:
-        for (let i = 0; i < count; i++) x[i] = a0[i] + h * (A51 * f1[i] + A52 * f2[i] + A53 * f3[i] + A54 * f4[i]);
-        break;
-      case 5:
-        for (let i = 0; i < count; i++) x[i] = a0[i] + h * (A61 * f1[i] + A62 * f2[i] + A63 * f3[i] + A64 * f4[i] + A65 * f5[i]);
-        break;
-      case 6: // the 5th-order end value; its rate enters the error estimate (and the slope)
-        for (let i = 0; i < count; i++) x[i] = a0[i] + h * (B1 * f1[i] + B3 * f3[i] + B4 * f4[i] + B5 * f5[i] + B6 * f6[i]);
-        break;
-      default:
-        break;
-    }
-    stageRates(k, w, count, w.f[stage]);
-  }
+  stageRates(k, w, count, w.f[0]);
+  w.h.fill(dtS, 0, count);
+  dormandPrinceStages(k, w, count);
+  const [f1, , f3, f4, f5, f6, f7] = w.f;
+  let retries = 0;
   const lls = k.formCode === LEE_LOOS_SPRINGER;
   for (let i = 0; i < count; i++) {
     const j = nodes[i];
@@ -536,18 +532,131 @@ export function advanceCureBatch(
     const room = (lls && !upper ? k.b : 1) - a;
     // advanceCure refuses a non-physical temperature or degree of cure: let it be the one to say so.
     const valid = TK[j] > 0 && TK[j] < Infinity && alphaIn[j] >= 0 && alphaIn[j] <= 1;
+    const tol = k.tolerance * Math.min(1, a + k.toleranceFloor);
+    own[i] = 0;
     if (valid && f1[i] === 0) {
       alphaOut[j] = a; // an equilibrium at this temperature, as in advanceCure
       own[i] = 1;
-    } else if (valid && h * f1[i] <= 0.5 * room && err <= k.tolerance * Math.min(1, a + k.toleranceFloor) && !(lls && !upper && a5 >= SWITCH_ALPHA)) {
+    } else if (valid && h * f1[i] <= 0.5 * room && err > tol && !lls) {
+      // advanceCure would reject this very step first: the node goes on from there with the others like it,
+      // sub-stepping in a batch of their own (continueCureBatch), with advanceCure's arithmetic
+      const r = retries++;
+      const q = w.retry as CureBatch;
+      q.at[r] = i;
+      q.a[r] = a;
+      q.T[r] = T[i];
+      q.K1[r] = w.K1[i];
+      q.K2[r] = w.K2[i];
+      q.K3[r] = w.K3[i];
+      q.centre[r] = w.centre[i];
+      q.f[0][r] = f1[i];
+      q.h[r] = h * stepFactor(err, tol);
+      q.t[r] = 0;
+    } else if (valid && h * f1[i] <= 0.5 * room && err <= tol && !(lls && !upper && a5 >= SWITCH_ALPHA)) {
       const next = a5 < CAP ? a5 : CAP;
       alphaOut[j] = next > a ? next : a;
       own[i] = 1;
     } else {
       alphaOut[j] = advanceCure(k, alphaIn[j], TK[j], dtS);
-      own[i] = 0;
     }
   }
+  if (retries > 0) continueCureBatch(k, w.retry as CureBatch, retries, dtS, nodes, alphaOut);
+}
+
+// The stages of dormandPrince() from α = a[i] with rate f[0][i] over the step h[i], each across all the
+// nodes, with the same arithmetic (one call site of stageRates, so that it stays inlined).
+function dormandPrinceStages(k: PreparedKinetics, w: CureBatch, count: number): void {
+  const { a: a0, x, h } = w;
+  const [f1, f2, f3, f4, f5, f6] = w.f;
+  for (let stage = 1; stage < 7; stage++) {
+    switch (stage) {
+      case 1:
+        for (let i = 0; i < count; i++) x[i] = a0[i] + h[i] * (A21 * f1[i]);
+        break;
+      case 2:
+        for (let i = 0; i < count; i++) x[i] = a0[i] + h[i] * (A31 * f1[i] + A32 * f2[i]);
+        break;
+      case 3:
+        for (let i = 0; i < count; i++) x[i] = a0[i] + h[i] * (A41 * f1[i] + A42 * f2[i] + A43 * f3[i]);
+        break;
+      case 4:
+        for (let i = 0; i < count; i++) x[i] = a0[i] + h[i] * (A51 * f1[i] + A52 * f2[i] + A53 * f3[i] + A54 * f4[i]);
+        break;
+      case 5:
+        for (let i = 0; i < count; i++) x[i] = a0[i] + h[i] * (A61 * f1[i] + A62 * f2[i] + A63 * f3[i] + A64 * f4[i] + A65 * f5[i]);
+        break;
+      default: // 6: the 5th-order end value; its rate enters the error estimate (and the slope)
+        for (let i = 0; i < count; i++) x[i] = a0[i] + h[i] * (B1 * f1[i] + B3 * f3[i] + B4 * f4[i] + B5 * f5[i] + B6 * f6[i]);
+        break;
+    }
+    stageRates(k, w, count, w.f[stage]);
+  }
+}
+
+/**
+ * integrateCure for nodes (not Lee–Loos–Springer) whose first full step was rejected, all at once: each
+ * round every node takes one Dormand–Prince step of its own length, then is accepted or not and gets its
+ * next step exactly as integrateCure's loop would, so each ends on advanceCure's value to the last bit.
+ * q holds per node its α, rate constants, rate at α (f[0]), trial step h, time t and list position `at`.
+ */
+function continueCureBatch(k: PreparedKinetics, q: CureBatch, count: number, dtS: number, nodes: Int32Array, alphaOut: Float64Array): void {
+  const { a, h, t, at, x } = q;
+  const [f1, , f3, f4, f5, f6, f7] = q.f;
+  let n = count;
+  for (let round = 0; n > 0; round++) {
+    if (round >= MAX_SUBSTEPS) throw new Error(`advanceCure: no convergence within ${MAX_SUBSTEPS} sub-steps (batch of ${n}, dt ${dtS} s)`);
+    // The top of integrateCure's loop: an equilibrium ends the node; the step is clipped to what is left and
+    // to half the room to full cure.
+    let m = 0;
+    for (let r = 0; r < n; r++) {
+      if (f1[r] === 0) {
+        alphaOut[nodes[at[r]]] = a[r];
+        continue;
+      }
+      if (m !== r) moveRetry(q, r, m);
+      const remaining = dtS - t[m];
+      if (h[m] > remaining) h[m] = remaining;
+      const room = 1 - a[m];
+      if (h[m] * f1[m] > 0.5 * room) h[m] = (0.5 * room) / f1[m];
+      m++;
+    }
+    n = m;
+    if (n === 0) return;
+    dormandPrinceStages(k, q, n);
+    m = 0;
+    for (let r = 0; r < n; r++) {
+      const err = Math.abs(h[r] * (E1 * f1[r] + E3 * f3[r] + E4 * f4[r] + E5 * f5[r] + E6 * f6[r] + E7 * f7[r]));
+      const tol = k.tolerance * Math.min(1, a[r] + k.toleranceFloor);
+      if (err <= tol) {
+        const next = x[r] < CAP ? x[r] : CAP;
+        if (next > a[r]) a[r] = next;
+        f1[r] = f7[r];
+        t[r] += h[r];
+        if (t[r] >= dtS * (1 - 1e-14)) {
+          alphaOut[nodes[at[r]]] = a[r];
+          continue;
+        }
+      }
+      h[r] *= stepFactor(err, tol);
+      if (m !== r) moveRetry(q, r, m);
+      m++;
+    }
+    n = m;
+  }
+}
+
+/** Move a sub-stepping node's state from position `from` to `to` (compacting the batch). */
+function moveRetry(q: CureBatch, from: number, to: number): void {
+  q.a[to] = q.a[from];
+  q.T[to] = q.T[from];
+  q.K1[to] = q.K1[from];
+  q.K2[to] = q.K2[from];
+  q.K3[to] = q.K3[from];
+  q.centre[to] = q.centre[from];
+  q.f[0][to] = q.f[0][from];
+  q.h[to] = q.h[from];
+  q.t[to] = q.t[from];
+  q.at[to] = q.at[from];
 }
 
 /**
