@@ -4,7 +4,7 @@ import { parseStudy, StudyInputError, type StudyParams, type StudyParamsInput } 
 import { cToK, minToS } from '../units';
 import { expectClose } from './test-support/expect-close';
 import { aluminiumPlate, demoCarbonFibre, demoResin180, demoStudies, invarPlate, leeLoosSpringerResin, quasiIsotropic, referenceStudy } from './demo-cards';
-import { DEFAULT_STEP_LIMITS, PREVIEW_STEP_LIMITS, simulate, type SimulationResult, type StepLimits } from './simulate';
+import { DEFAULT_STEP_LIMITS, PREVIEW_OPTIONS, simulate, type SimulationResult, type StepLimits } from './simulate';
 
 /** Linear interpolation of a history at time t (histories land exactly on segment ends). */
 function at(result: SimulationResult, series: Float64Array, tS: number): number {
@@ -344,11 +344,26 @@ describe('simulate: preview limits', () => {
   it('take about half the steps and stay close to the default solution', () => {
     const p = referenceStudy();
     const full = simulate(p);
-    const quick = simulate(p, { stepLimits: PREVIEW_STEP_LIMITS });
+    const quick = simulate(p, PREVIEW_OPTIONS);
     expect(quick.steps).toBeLessThan(0.65 * full.steps);
     expect(Math.abs(quick.summary.finalCureMin - full.summary.finalCureMin)).toBeLessThan(1e-3);
     expect(Math.abs(quick.summary.peakPartC - full.summary.peakPartC)).toBeLessThan(0.5);
     expect(Math.abs(quick.summary.cycleMin - full.summary.cycleMin)).toBeLessThan(2.5);
+    expectClose(quick.summary.warpageMm, full.summary.warpageMm, 0.05);
+  });
+
+  it('its looser cure tolerance moves the results by far less than its longer steps do', () => {
+    const p = referenceStudy();
+    const tight = simulate(p, { ...PREVIEW_OPTIONS, cureTolerance: 1e-8 }).summary;
+    const quick = simulate(p, PREVIEW_OPTIONS).summary;
+    const full = simulate(p).summary;
+    expect(Math.abs(quick.finalCureMin - tight.finalCureMin)).toBeLessThan(0.1 * Math.abs(tight.finalCureMin - full.finalCureMin));
+    expect(Math.abs(quick.warpageMm - tight.warpageMm)).toBeLessThan(0.1 * Math.abs(tight.warpageMm - full.warpageMm));
+  });
+
+  it('refuses a cure tolerance outside (0, 1e-3] and names the option', () => {
+    expect(() => simulate(referenceStudy(), { cureTolerance: 0 })).toThrow(/options\.cureTolerance: 0 is out of range: allowed > 0 and ≤ 1e-3/);
+    expect(() => simulate(referenceStudy(), { cureTolerance: 0.01 })).toThrow(StudyInputError);
   });
 });
 

@@ -8,7 +8,7 @@ import { cureRate } from './kinetics';
 import { adiabaticTemperatureRiseK, advanceThermochemical, createThermochemical, maxCureRate } from './thermochemical';
 
 export type { LimitCheck, SimulateOptions, SimulationHistory, SimulationResult, StepLimits, StudySummary } from './simulation-result';
-export { DEFAULT_STEP_LIMITS, PREVIEW_STEP_LIMITS } from './simulation-result';
+export { DEFAULT_STEP_LIMITS, PREVIEW_OPTIONS, PREVIEW_STEP_LIMITS } from './simulation-result';
 
 // The adaptive time loop (step rule in shared/solver/README.md, "Time step"): cycle → heat and cure through the thickness → ply stresses and
 // laminate equilibrium, step by step, with histories recorded and metrics tracked on the way. Everything is
@@ -81,11 +81,16 @@ export function simulate(input: StudyParamsInput, options: SimulateOptions = {})
     if (!(v > 0) || !Number.isFinite(v)) throw new StudyInputError([{ path: `options.stepLimits.${k}`, message: `${String(v)} is out of range: allowed > 0 and finite` }]);
   }
 
+  const tol = options.cureTolerance;
+  if (tol !== undefined && !(tol > 0 && tol <= 1e-3)) {
+    throw new StudyInputError([{ path: 'options.cureTolerance', message: `${String(tol)} is out of range: allowed > 0 and ≤ 1e-3` }]);
+  }
+
   // --- set-up (all allocation happens here) ---
   const program = prepareCycle(params.cycle);
   const cycle = createCycleState(program);
   const air0 = airAt(program, cycle, 0);
-  const tc = createThermochemical(params, { initialK: air0.airK });
+  const tc = createThermochemical(params, { initialK: air0.airK, cureTolerance: options.cureTolerance });
   tc.toolAirK = air0.toolAirK;
   const nodes = tc.zM.length;
   const last = nodes - 1;

@@ -32,6 +32,8 @@ export interface ThermochemicalOptions {
   scheme?: 'crank-nicolson' | 'backward-euler';
   /** intervals through the tool plate (default: one per 0.5 mm, between 4 and 24) */
   toolIntervals?: number;
+  /** the cure integrator's tolerance on α per node and step (default kinetics.DEFAULT_CURE_TOLERANCE) */
+  cureTolerance?: number;
 }
 
 /** Energy bookkeeping per unit area since the start, J/m². */
@@ -156,7 +158,7 @@ export function createThermochemical(p: ThermochemicalParams, options: Thermoche
   });
   nodePly[nLam - 1] = plies.length - 1;
   for (let j = 0; j < plyPointNode.length; j++) plyPointZM[j] = zM[plyPointNode[j]];
-  const kinetics = prepareKinetics(p.resin);
+  const kinetics = prepareKinetics(p.resin, { tolerance: options.cureTolerance });
   const glass = prepareGlassTransition(p.resin.glassTransition);
   const alpha = new Float64Array(nLam).fill(initialDegreeOfCure(kinetics));
   const tgK = new Float64Array(nLam);

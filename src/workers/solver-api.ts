@@ -6,7 +6,7 @@
 import { transfer } from 'comlink';
 import { convert, type Quantity, type UnitOf } from '../../shared/units';
 import type { StudyParams } from '../../shared/schemas/study';
-import { PREVIEW_STEP_LIMITS, simulate, type SimulationResult } from '../../shared/solver/simulate';
+import { PREVIEW_OPTIONS, simulate, type SimulationResult } from '../../shared/solver/simulate';
 
 /** Every typed-array buffer in a result, so the answer moves to the page instead of being copied. */
 export function resultBuffers(result: SimulationResult): ArrayBuffer[] {
@@ -42,12 +42,12 @@ export const solverApi = {
    * One simulation; the result's typed arrays are transferred, not copied. 'full' (the default) solves with
    * the solver's default step limits and records the through-thickness profiles: what stays on screen, is
    * checked against the limits and exported. 'preview' is the quick look while a handle is dragged: the
-   * coarser PREVIEW_STEP_LIMITS (about half the steps) and no profiles.
+   * coarser PREVIEW_OPTIONS (half the steps, a looser cure tolerance) and no profiles.
    */
   simulate(params: StudyParams, accuracy: SolveAccuracy = 'full'): Solved {
     const t0 = performance.now();
     const result =
-      accuracy === 'preview' ? simulate(params, { stepLimits: PREVIEW_STEP_LIMITS }) : simulate(params, { recordProfiles: true });
+      accuracy === 'preview' ? simulate(params, PREVIEW_OPTIONS) : simulate(params, { recordProfiles: true });
     const solved: Solved = { result, accuracy, workerMs: performance.now() - t0 };
     return transfer(solved, resultBuffers(result));
   },
