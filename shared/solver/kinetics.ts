@@ -316,13 +316,8 @@ export function advanceCure(k: PreparedKinetics, alpha: number, TK: number, dtS:
   if (!(dtS >= 0) || !Number.isFinite(dtS)) throw new RangeError(`advanceCure: time step ${String(dtS)} s: allowed ≥ 0 and finite`);
   if (!(TK > 0) || !Number.isFinite(TK)) throw new RangeError(`advanceCure: temperature ${String(TK)} K: allowed > 0 and finite`);
   if (!(alpha >= 0 && alpha <= 1)) throw new RangeError(`advanceCure: degree of cure ${String(alpha)}: allowed 0..1`);
-  const a = alpha < CAP ? alpha : CAP;
+  let a = alpha < CAP ? alpha : CAP;
   if (dtS === 0) return a;
-  return integrateCure(k, a, TK, dtS, dtS);
-}
-
-/** The sub-step loop of advanceCure from α = a (already capped), with hFirst as the first trial step. */
-function integrateCure(k: PreparedKinetics, a: number, TK: number, dtS: number, hFirst: number): number {
   const K1 = arrhenius(k.a1, k.e1OverR, TK);
   const K2 = arrhenius(k.a2, k.e2OverR, TK);
   const K3 = arrhenius(k.a3, k.e3OverR, TK);
@@ -331,7 +326,7 @@ function integrateCure(k: PreparedKinetics, a: number, TK: number, dtS: number, 
   let upper = isUpperBranch(k, a);
   let f = rateAt(k, K1, K2, K3, centre, a, upper);
   let t = 0;
-  let h = hFirst;
+  let h = dtS;
   for (let i = 0; i < MAX_SUBSTEPS; i++) {
     // At a fixed temperature the equation is autonomous: a zero rate is an equilibrium.
     if (f === 0) return a;
@@ -341,8 +336,7 @@ function integrateCure(k: PreparedKinetics, a: number, TK: number, dtS: number, 
     const room = (lls && !upper ? k.b : 1) - a;
     if (h * f > 0.5 * room) h = (0.5 * room) / f;
     dormandPrince(k, K1, K2, K3, centre, upper, a, f, h, step);
-    // Absolute tolerance; relative while α is tiny for a law that grows from its seed (see toleranceFloor).
-    const tol = k.tolerance * Math.min(1, a + k.toleranceFloor);
+    const tol = toleranceAt(k, a);
     const err = step.error;
     if (err <= tol) {
       if (lls && !upper && step.alpha >= SWITCH_ALPHA) {
@@ -361,6 +355,11 @@ function integrateCure(k: PreparedKinetics, a: number, TK: number, dtS: number, 
     h *= stepFactor(err, tol);
   }
   throw new Error(`advanceCure: no convergence within ${MAX_SUBSTEPS} sub-steps (α ${a}, T ${TK} K, dt ${dtS} s)`);
+}
+
+/** The tolerance on a step from α: absolute, relative while α is tiny for a law that grows from its seed. */
+function toleranceAt(k: PreparedKinetics, alpha: number): number {
+  return k.tolerance * Math.min(1, alpha + k.toleranceFloor);
 }
 
 /** Standard step-size control for a 5th-order method (Hairer, Nørsett & Wanner, Solving ODEs I, §II.4). */
@@ -532,14 +531,14 @@ export function advanceCureBatch(
     const room = (lls && !upper ? k.b : 1) - a;
     // advanceCure refuses a non-physical temperature or degree of cure: let it be the one to say so.
     const valid = TK[j] > 0 && TK[j] < Infinity && alphaIn[j] >= 0 && alphaIn[j] <= 1;
-    const tol = k.tolerance * Math.min(1, a + k.toleranceFloor);
+    const tol = toleranceAt(k, a);
     own[i] = 0;
     if (valid && f1[i] === 0) {
       alphaOut[j] = a; // an equilibrium at this temperature, as in advanceCure
       own[i] = 1;
     } else if (valid && h * f1[i] <= 0.5 * room && err > tol && !lls) {
       // advanceCure would reject this very step first: the node goes on from there with the others like it,
-      // sub-stepping in a batch of their own (continueCureBatch), with advanceCure's arithmetic
+      // sub-stepping in a batch of their own (continueCureBatch), with advanceCure's loop and arithmetic
       const r = retries++;
       const q = w.retry as CureBatch;
       q.at[r] = i;
@@ -594,9 +593,9 @@ function dormandPrinceStages(k: PreparedKinetics, w: CureBatch, count: number): 
 }
 
 /**
- * integrateCure for nodes (not Lee–Loos–Springer) whose first full step was rejected, all at once: each
- * round every node takes one Dormand–Prince step of its own length, then is accepted or not and gets its
- * next step exactly as integrateCure's loop would, so each ends on advanceCure's value to the last bit.
+ * advanceCure's sub-step loop for nodes (not Lee–Loos–Springer) whose first full step was rejected, all at
+ * once: each round every node takes one Dormand–Prince step of its own length, then is accepted or not and
+ * gets its next step exactly as that loop would, so each ends on advanceCure's value to the last bit.
  * q holds per node its α, rate constants, rate at α (f[0]), trial step h, time t and list position `at`.
  */
 function continueCureBatch(k: PreparedKinetics, q: CureBatch, count: number, dtS: number, nodes: Int32Array, alphaOut: Float64Array): void {
@@ -605,7 +604,7 @@ function continueCureBatch(k: PreparedKinetics, q: CureBatch, count: number, dtS
   let n = count;
   for (let round = 0; n > 0; round++) {
     if (round >= MAX_SUBSTEPS) throw new Error(`advanceCure: no convergence within ${MAX_SUBSTEPS} sub-steps (batch of ${n}, dt ${dtS} s)`);
-    // The top of integrateCure's loop: an equilibrium ends the node; the step is clipped to what is left and
+    // The top of advanceCure's loop: an equilibrium ends the node; the step is clipped to what is left and
     // to half the room to full cure.
     let m = 0;
     for (let r = 0; r < n; r++) {
@@ -626,7 +625,7 @@ function continueCureBatch(k: PreparedKinetics, q: CureBatch, count: number, dtS
     m = 0;
     for (let r = 0; r < n; r++) {
       const err = Math.abs(h[r] * (E1 * f1[r] + E3 * f3[r] + E4 * f4[r] + E5 * f5[r] + E6 * f6[r] + E7 * f7[r]));
-      const tol = k.tolerance * Math.min(1, a[r] + k.toleranceFloor);
+      const tol = toleranceAt(k, a[r]);
       if (err <= tol) {
         const next = x[r] < CAP ? x[r] : CAP;
         if (next > a[r]) a[r] = next;
