@@ -14,7 +14,7 @@ export { DEFAULT_STEP_LIMITS, PREVIEW_OPTIONS, PREVIEW_STEP_LIMITS } from './sim
 // laminate equilibrium, step by step, with histories recorded and metrics tracked on the way. Everything is
 // allocated once per simulation (history buffers grow by doubling, a handful of times per run), never per step.
 
-export const MODEL_VERSION = 'dwellform-solver 1.1.0'; // 1.1: shape reported at the shop temperature, not at demould
+export const MODEL_VERSION = 'dwellform-solver 1.2.0'; // 1.1: shape at the shop temperature; 1.2: step limits and cure tolerance sized by an accuracy budget
 
 /** Far more steps than any valid study needs; reaching it means the step control has failed. */
 const MAX_STEPS = 5_000_000;
