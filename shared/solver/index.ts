@@ -1,6 +1,6 @@
 // Public API of the cure solver. Consumers (the worker, the server seed, exports) import from here.
 
-export { simulate, MODEL_VERSION, DEFAULT_STEP_LIMITS, PREVIEW_OPTIONS, PREVIEW_STEP_LIMITS } from './simulate';
+export { simulate, MODEL_VERSION, DEFAULT_STEP_LIMITS, PREVIEW_OPTIONS } from './simulate';
 export type { SimulationResult, SimulationHistory, SimulateOptions, StepLimits, StudySummary, LimitCheck } from './simulate';
 
 export { plannedSchedule, prepareCycle, airAt, createCycleState, scheduledDurationS } from './cycle';

@@ -30,6 +30,8 @@ const CAP = ALPHA_MAX;
  * size): absolute, except for a law that grows from its seed, where it shrinks with α (see toleranceFloor).
  */
 export const DEFAULT_CURE_TOLERANCE = 1e-8;
+/** The loosest tolerance a caller may ask for. */
+export const MAX_CURE_TOLERANCE = 1e-3;
 /**
  * A purely autocatalytic law grows from its seed and amplifies an early relative error into the whole curve,
  * so its tolerance is tolerance·(α + SEEDED_TOLERANCE_FLOOR); with an α-independent term an early error stays
@@ -89,7 +91,7 @@ function requireFinite(value: number, field: string, rule: string, ok: boolean):
 export function prepareKinetics(card: KineticsInput, options: { tolerance?: number } = {}): PreparedKinetics {
   const kin = card.kinetics;
   const tolerance = options.tolerance ?? DEFAULT_CURE_TOLERANCE;
-  requireFinite(tolerance, 'tolerance', '> 0 and ≤ 1e-3', tolerance > 0 && tolerance <= 1e-3);
+  requireFinite(tolerance, 'tolerance', `> 0 and ≤ ${MAX_CURE_TOLERANCE.toExponential()}`, tolerance > 0 && tolerance <= MAX_CURE_TOLERANCE);
   const base = {
     a1: 0, a2: 0, a3: 0, e1OverR: 0, e2OverR: 0, e3OverR: 0, m: 0, n: 1, b: 1,
   };
@@ -301,7 +303,12 @@ function dormandPrince(
   const f7 = rateAt(k, K1, K2, K3, centre, a5, upper);
   out.alpha = a5;
   out.endRate = f7;
-  out.error = Math.abs(h * (E1 * f1 + E3 * f3 + E4 * f4 + E5 * f5 + E6 * f6 + E7 * f7));
+  out.error = stepError(h, f1, f3, f4, f5, f6, f7);
+}
+
+/** The Dormand–Prince error estimate of a step of length h from its stage rates (f2 does not enter it). */
+function stepError(h: number, f1: number, f3: number, f4: number, f5: number, f6: number, f7: number): number {
+  return Math.abs(h * (E1 * f1 + E3 * f3 + E4 * f4 + E5 * f5 + E6 * f6 + E7 * f7));
 }
 
 const MAX_SUBSTEPS = 100_000;
@@ -527,31 +534,25 @@ export function advanceCureBatch(
     const a = a0[i];
     const a5 = x[i];
     const upper = isUpperBranch(k, a);
-    const err = Math.abs(h * (E1 * f1[i] + E3 * f3[i] + E4 * f4[i] + E5 * f5[i] + E6 * f6[i] + E7 * f7[i]));
+    const err = stepError(h, f1[i], f3[i], f4[i], f5[i], f6[i], f7[i]);
     const room = (lls && !upper ? k.b : 1) - a;
     // advanceCure refuses a non-physical temperature or degree of cure: let it be the one to say so.
     const valid = TK[j] > 0 && TK[j] < Infinity && alphaIn[j] >= 0 && alphaIn[j] <= 1;
     const tol = toleranceAt(k, a);
+    // the full step is a fair trial: no invalid input to refuse, and short of half the room to full cure
+    const fits = valid && h * f1[i] <= 0.5 * room;
     own[i] = 0;
     if (valid && f1[i] === 0) {
       alphaOut[j] = a; // an equilibrium at this temperature, as in advanceCure
       own[i] = 1;
-    } else if (valid && h * f1[i] <= 0.5 * room && err > tol && !lls) {
+    } else if (fits && err > tol && !lls) {
       // advanceCure would reject this very step first: the node goes on from there with the others like it,
       // sub-stepping in a batch of their own (continueCureBatch), with advanceCure's loop and arithmetic
-      const r = retries++;
-      const q = w.retry as CureBatch;
-      q.at[r] = i;
-      q.a[r] = a;
-      q.T[r] = T[i];
-      q.K1[r] = w.K1[i];
-      q.K2[r] = w.K2[i];
-      q.K3[r] = w.K3[i];
-      q.centre[r] = w.centre[i];
-      q.f[0][r] = f1[i];
-      q.h[r] = h * stepFactor(err, tol);
-      q.t[r] = 0;
-    } else if (valid && h * f1[i] <= 0.5 * room && err <= tol && !(lls && !upper && a5 >= SWITCH_ALPHA)) {
+      w.h[i] = h * stepFactor(err, tol);
+      w.t[i] = 0;
+      w.at[i] = i;
+      copySubStepState(w, i, w.retry as CureBatch, retries++);
+    } else if (fits && err <= tol && !(lls && !upper && a5 >= SWITCH_ALPHA)) {
       const next = a5 < CAP ? a5 : CAP;
       alphaOut[j] = next > a ? next : a;
       own[i] = 1;
@@ -596,7 +597,8 @@ function dormandPrinceStages(k: PreparedKinetics, w: CureBatch, count: number): 
  * advanceCure's sub-step loop for nodes (not Lee–Loos–Springer) whose first full step was rejected, all at
  * once: each round every node takes one Dormand–Prince step of its own length, then is accepted or not and
  * gets its next step exactly as that loop would, so each ends on advanceCure's value to the last bit.
- * q holds per node its α, rate constants, rate at α (f[0]), trial step h, time t and list position `at`.
+ * q holds per node what copySubStepState moves: α, rate constants, rate at α (f[0]), trial step h, time t
+ * and list position `at`.
  */
 function continueCureBatch(k: PreparedKinetics, q: CureBatch, count: number, dtS: number, nodes: Int32Array, alphaOut: Float64Array): void {
   const { a, h, t, at, x } = q;
@@ -612,7 +614,7 @@ function continueCureBatch(k: PreparedKinetics, q: CureBatch, count: number, dtS
         alphaOut[nodes[at[r]]] = a[r];
         continue;
       }
-      if (m !== r) moveRetry(q, r, m);
+      if (m !== r) copySubStepState(q, r, q, m);
       const remaining = dtS - t[m];
       if (h[m] > remaining) h[m] = remaining;
       const room = 1 - a[m];
@@ -624,7 +626,7 @@ function continueCureBatch(k: PreparedKinetics, q: CureBatch, count: number, dtS
     dormandPrinceStages(k, q, n);
     m = 0;
     for (let r = 0; r < n; r++) {
-      const err = Math.abs(h[r] * (E1 * f1[r] + E3 * f3[r] + E4 * f4[r] + E5 * f5[r] + E6 * f6[r] + E7 * f7[r]));
+      const err = stepError(h[r], f1[r], f3[r], f4[r], f5[r], f6[r], f7[r]);
       const tol = toleranceAt(k, a[r]);
       if (err <= tol) {
         const next = x[r] < CAP ? x[r] : CAP;
@@ -637,25 +639,24 @@ function continueCureBatch(k: PreparedKinetics, q: CureBatch, count: number, dtS
         }
       }
       h[r] *= stepFactor(err, tol);
-      if (m !== r) moveRetry(q, r, m);
+      if (m !== r) copySubStepState(q, r, q, m);
       m++;
     }
     n = m;
   }
 }
 
-/** Move a sub-stepping node's state from position `from` to `to` (compacting the batch). */
-function moveRetry(q: CureBatch, from: number, to: number): void {
-  q.a[to] = q.a[from];
-  q.T[to] = q.T[from];
-  q.K1[to] = q.K1[from];
-  q.K2[to] = q.K2[from];
-  q.K3[to] = q.K3[from];
-  q.centre[to] = q.centre[from];
-  q.f[0][to] = q.f[0][from];
-  q.h[to] = q.h[from];
-  q.t[to] = q.t[from];
-  q.at[to] = q.at[from];
+/** What a sub-stepping node carries, from position i of one batch to position r of another (or the same). */
+function copySubStepState(from: CureBatch, i: number, to: CureBatch, r: number): void {
+  to.a[r] = from.a[i];
+  to.K1[r] = from.K1[i];
+  to.K2[r] = from.K2[i];
+  to.K3[r] = from.K3[i];
+  to.centre[r] = from.centre[i];
+  to.f[0][r] = from.f[0][i];
+  to.h[r] = from.h[i];
+  to.t[r] = from.t[i];
+  to.at[r] = from.at[i];
 }
 
 /**

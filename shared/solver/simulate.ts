@@ -4,11 +4,11 @@ import { advanceCycle, airAt, airRateKPerS, createCycleState, nextEventS, prepar
 import { coolToShopTemperature, createMechanics, demould, mechanicsResult, mechanicsStep, primeMechanics, resinModulusPa } from './mechanics';
 import { createMetricsTracker, observeStep, summarize } from './metrics';
 import { DEFAULT_STEP_LIMITS, type SimulateOptions, type SimulationResult, type StepLimits } from './simulation-result';
-import { cureRate } from './kinetics';
+import { cureRate, MAX_CURE_TOLERANCE } from './kinetics';
 import { adiabaticTemperatureRiseK, advanceThermochemical, createThermochemical, maxCureRate } from './thermochemical';
 
 export type { LimitCheck, SimulateOptions, SimulationHistory, SimulationResult, StepLimits, StudySummary } from './simulation-result';
-export { DEFAULT_STEP_LIMITS, PREVIEW_OPTIONS, PREVIEW_STEP_LIMITS } from './simulation-result';
+export { DEFAULT_STEP_LIMITS, PREVIEW_OPTIONS } from './simulation-result';
 
 // The adaptive time loop (step rule in shared/solver/README.md, "Time step"): cycle → heat and cure through the thickness → ply stresses and
 // laminate equilibrium, step by step, with histories recorded and metrics tracked on the way. Everything is
@@ -82,8 +82,8 @@ export function simulate(input: StudyParamsInput, options: SimulateOptions = {})
   }
 
   const tol = options.cureTolerance;
-  if (tol !== undefined && !(tol > 0 && tol <= 1e-3)) {
-    throw new StudyInputError([{ path: 'options.cureTolerance', message: `${String(tol)} is out of range: allowed > 0 and ≤ 1e-3` }]);
+  if (tol !== undefined && !(tol > 0 && tol <= MAX_CURE_TOLERANCE)) {
+    throw new StudyInputError([{ path: 'options.cureTolerance', message: `${String(tol)} is out of range: allowed > 0 and ≤ ${MAX_CURE_TOLERANCE.toExponential()}` }]);
   }
 
   // --- set-up (all allocation happens here) ---
