@@ -41,6 +41,23 @@ function px(v: number): string {
   return `${r < 0 ? '-' : ''}${(a - tenth) / 10}${tenth === 0 ? '' : `.${tenth}`}`;
 }
 
+/** The points at `indices` as path commands: `first` (M to start a path, L to go on) then L to each next. */
+function polyline(
+  indices: number[],
+  xs: Numeric,
+  ys: Numeric,
+  toX: (v: number) => number,
+  toY: (v: number) => number,
+  first: 'M' | 'L',
+): string {
+  let d = '';
+  for (let k = 0; k < indices.length; k++) {
+    const i = indices[k];
+    d += `${k === 0 ? first : 'L'}${px(toX(xs[i]))},${px(toY(ys[i]))}`;
+  }
+  return d;
+}
+
 /**
  * SVG path of ys against xs through pixel mappings ("M x,y L x,y …"). Written out directly rather than
  * through d3-shape's line: this runs for every series on every solve while a handle is dragged.
@@ -52,13 +69,7 @@ export function seriesPath(
   toY: (v: number) => number,
   columns: number,
 ): string {
-  const indices = drawIndices(ys, columns);
-  let d = '';
-  for (let k = 0; k < indices.length; k++) {
-    const i = indices[k];
-    d += `${k === 0 ? 'M' : 'L'}${px(toX(xs[i]))},${px(toY(ys[i]))}`;
-  }
-  return d;
+  return polyline(drawIndices(ys, columns), xs, ys, toX, toY, 'M');
 }
 
 /** SVG path of the band between two series: along the upper edge, back along the lower one, closed. */
@@ -76,16 +87,8 @@ export function bandPath(
   const indices: number[] = [];
   for (let i = 0; i < n; i += stride) indices.push(i);
   if (indices[indices.length - 1] !== n - 1) indices.push(n - 1);
-  let d = '';
-  for (let k = 0; k < indices.length; k++) {
-    const i = indices[k];
-    d += `${k === 0 ? 'M' : 'L'}${px(toX(xs[i]))},${px(toY(upper[i]))}`;
-  }
-  for (let k = indices.length - 1; k >= 0; k--) {
-    const i = indices[k];
-    d += `L${px(toX(xs[i]))},${px(toY(lower[i]))}`;
-  }
-  return `${d}Z`;
+  const back = [...indices].reverse();
+  return `${polyline(indices, xs, upper, toX, toY, 'M')}${polyline(back, xs, lower, toX, toY, 'L')}Z`;
 }
 
 /** Index of the last sample at or before `t` in an increasing array (0 before the start). */
