@@ -1,4 +1,4 @@
-import { expect, test, type Page } from '@playwright/test';
+import { expect, test, type Locator, type Page } from '@playwright/test';
 
 // The seeded demo library (server/db/seed/demo-studies.ts): part TB-2407 holds the study
 // "Two-dwell cycle for the 24-ply panel", owned by the lead amara.okafor.
@@ -8,6 +8,16 @@ async function signInAs(page: Page, login: string) {
   await page.goto('/api/auth/github?next=/');
   await page.locator(`a[data-login="${login}"]`).click();
   await page.waitForURL((url) => !url.pathname.startsWith('/login') && !url.pathname.startsWith('/api'));
+}
+
+/** Press on a handle and move the pointer left by `moves` steps of 8 px, leaving the button down. */
+async function dragLeft(page: Page, handle: Locator, moves: number) {
+  const box = (await handle.boundingBox())!;
+  const x = box.x + box.width / 2;
+  const y = box.y + box.height / 2;
+  await page.mouse.move(x, y);
+  await page.mouse.down();
+  for (let i = 1; i <= moves; i++) await page.mouse.move(x - i * 8, y);
 }
 
 async function demoStudyId(page: Page): Promise<number> {
@@ -40,12 +50,7 @@ test('dragging the second dwell’s end with the mouse shortens it and the final
 
   const handle = page.getByRole('slider', { name: 'Dwell 2 end' });
   const lengthBefore = Number(await handle.getAttribute('aria-valuenow'));
-  const box = (await handle.boundingBox())!;
-  const x = box.x + box.width / 2;
-  const y = box.y + box.height / 2;
-  await page.mouse.move(x, y);
-  await page.mouse.down();
-  for (let i = 1; i <= 20; i++) await page.mouse.move(x - i * 8, y);
+  await dragLeft(page, handle, 20);
   await page.mouse.up();
 
   const lengthAfter = Number(await handle.getAttribute('aria-valuenow'));
@@ -67,12 +72,7 @@ test('while a handle is dragged the figures are a marked quick look; once it is 
   await expect(csv).toBeEnabled();
 
   const handle = page.getByRole('slider', { name: 'Dwell 2 end' });
-  const box = (await handle.boundingBox())!;
-  const x = box.x + box.width / 2;
-  const y = box.y + box.height / 2;
-  await page.mouse.move(x, y);
-  await page.mouse.down();
-  for (let i = 1; i <= 10; i++) await page.mouse.move(x - i * 8, y);
+  await dragLeft(page, handle, 10);
 
   // Held: a quick look, said so; the verdicts stay on the last full solve and the CSV waits.
   await expect(accuracy).toHaveAttribute('data-accuracy', 'preview');
