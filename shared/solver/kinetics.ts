@@ -29,7 +29,7 @@ const CAP = ALPHA_MAX;
  * Default tolerance on α per call of advanceCure (shared/solver/README.md, "Cure kinetics", says why this
  * size): absolute, except for a law that grows from its seed, where it shrinks with α (see toleranceFloor).
  */
-export const DEFAULT_CURE_TOLERANCE = 1e-8;
+export const DEFAULT_CURE_TOLERANCE = 1e-7;
 /** The loosest tolerance a caller may ask for. */
 export const MAX_CURE_TOLERANCE = 1e-3;
 /**

@@ -14,15 +14,27 @@ export { DEFAULT_STEP_LIMITS, PREVIEW_OPTIONS } from './simulation-result';
 // laminate equilibrium, step by step, with histories recorded and metrics tracked on the way. Everything is
 // allocated once per simulation (history buffers grow by doubling, a handful of times per run), never per step.
 
-export const MODEL_VERSION = 'dwellform-solver 1.2.0'; // 1.1: shape at the shop temperature; 1.2: step limits and cure tolerance sized by an accuracy budget
+export const MODEL_VERSION = 'dwellform-solver 1.3.0'; // 1.1: shape at the shop temperature; 1.2: step limits and cure tolerance sized by an accuracy budget; 1.3: α limit relaxed away from the gel front, cure tolerance 1e-7
 
 /** Far more steps than any valid study needs; reaching it means the step control has failed. */
 const MAX_STEPS = 5_000_000;
 /**
- * Once every node has gelled the α limit is this many times larger: the tight limit is there to place the gel
- * front smoothly (warpage follows a dragged ramp without steps); after it, cure moves Tg and stiffness only.
+ * While the gel front is out of reach the α limit is this many times larger. The tight limit is there to place
+ * the gel front smoothly (warpage follows a dragged ramp without steps); away from it, cure moves the reaction
+ * heat, Tg and stiffness only, which the accuracy budget shows the larger limit paces well.
  */
-const AFTER_GEL_CURE_FACTOR = 2;
+const RELAXED_CURE_FACTOR = 2;
+/** "Out of reach": no node still below the gel point is within this many relaxed α steps of it. */
+const GEL_REACH_STEPS = 2;
+
+/** True when no laminate node below the gel point has α within `window` of it (all gelled counts as far). */
+function gelFrontFar(alpha: Float64Array, gelPoint: number, window: number): boolean {
+  for (let j = 0; j < alpha.length; j++) {
+    const a = alpha[j];
+    if (a < gelPoint && a >= gelPoint - window) return false;
+  }
+  return true;
+}
 /** Energy-balance residual above which the summary warns (the model accepts < 0.5 %). */
 const ENERGY_WARNING = 0.005;
 
@@ -164,7 +176,9 @@ export function simulate(input: StudyParamsInput, options: SimulateOptions = {})
   let partRate = 0; // fastest part temperature change of the last step, K/s
   let fastNode = -1; // laminate node whose α moved most in the last step
   let lastCureRate = 0; // that node's mean cure rate over the last step, 1/s
-  let allGelled = false; // every laminate node past the gel point (the α limit relaxes: README, "Time step")
+  // The α limit relaxes while the gel front is out of reach (README, "Time step").
+  const gelWindow = GEL_REACH_STEPS * RELAXED_CURE_FACTOR * limits.maxCureChange;
+  let gelFar = gelFrontFar(tc.alpha, params.resin.gelPoint, gelWindow);
   while (!cycle.done) {
     if (steps >= MAX_STEPS) throw new Error(`simulate: gave up after ${MAX_STEPS} steps at t = ${t} s (step control failed)`);
     // Predict the step from the limits (shared/solver/README.md, "Time step"); a step may at most double the last unclipped one.
@@ -174,7 +188,7 @@ export function simulate(input: StudyParamsInput, options: SimulateOptions = {})
     // Fastest cure rate now: evaluated at the node that cured fastest in the last step (one rate evaluation
     // instead of one per node), never below that node's mean rate over the last step.
     const rate = fastNode < 0 ? maxCureRate(tc) : Math.max(lastCureRate, cureRate(tc.kinetics, tc.alpha[fastNode], tc.TK[fastNode]));
-    if (rate > 0) dt = Math.min(dt, (allGelled ? AFTER_GEL_CURE_FACTOR * limits.maxCureChange : limits.maxCureChange) / rate);
+    if (rate > 0) dt = Math.min(dt, (gelFar ? RELAXED_CURE_FACTOR * limits.maxCureChange : limits.maxCureChange) / rate);
     if (partRate > 0) dt = Math.min(dt, limits.maxPartChangeK / partRate);
     naturalDt = dt;
     // Land exactly on the next event; avoid leaving a sliver just before it.
@@ -200,9 +214,7 @@ export function simulate(input: StudyParamsInput, options: SimulateOptions = {})
     let minT = tc.TK[0];
     let maxT = tc.TK[0];
     let maxDAlpha = -1;
-    let minAlpha = 1;
     for (let j = 0; j < nodes; j++) {
-      if (tc.alpha[j] < minAlpha) minAlpha = tc.alpha[j];
       const T = tc.TK[j];
       if (T < minT) minT = T;
       if (T > maxT) maxT = T;
@@ -213,7 +225,7 @@ export function simulate(input: StudyParamsInput, options: SimulateOptions = {})
       }
     }
     lastCureRate = maxDAlpha / dt;
-    allGelled = minAlpha >= params.resin.gelPoint;
+    gelFar = gelFrontFar(tc.alpha, params.resin.gelPoint, gelWindow);
     observeStep(tracker, t, tc.TK, tc.alpha, 0, air.setpointK);
     record(t, air.airK, air.toolAirK, air.pressurePa, air.setpointK);
     advanceCycle(program, cycle, t, minT, maxT);

@@ -40,7 +40,7 @@ export interface SimulateOptions {
   recordProfiles?: boolean;
   /** step-size control; defaults follow the time-step rule in shared/solver/README.md (additive to the contract, used by convergence tests) */
   stepLimits?: Partial<StepLimits>;
-  /** tolerance on α per node and step of the cure integrator (default kinetics.DEFAULT_CURE_TOLERANCE, 1e-8) */
+  /** tolerance on α per node and step of the cure integrator (default kinetics.DEFAULT_CURE_TOLERANCE, 1e-7) */
   cureTolerance?: number;
 }
 
@@ -61,7 +61,7 @@ export const DEFAULT_STEP_LIMITS: StepLimits = { maxAirChangeK: 5, maxCureChange
  * What a preview is, the quick look while the user drags (sized in shared/solver/README.md, "Time step"):
  * limits twice the defaults, about half the steps (the loop is second order in the step, so results move by
  * roughly 4× the already small step error of the defaults), and a cure tolerance of 1e-6 per step instead of
- * 1e-8 (the longer steps would otherwise send one node step in five to sub-steps; the results move by under
+ * 1e-7 (the longer steps would otherwise send many node steps to sub-steps; the results move by under
  * 1e-6 K and 1e-6 mm on the reference study). Re-solve with the defaults when the drag ends.
  */
 export const PREVIEW_OPTIONS: SimulateOptions = {
