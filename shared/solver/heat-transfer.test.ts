@@ -66,6 +66,36 @@ describe('prepared step, several sources', () => {
   });
 });
 
+describe('source linear in the new temperature', () => {
+  it('solves the step whose source, evaluated at the temperatures it returns, is the given affine source', () => {
+    // consistency (no outside source): with s_i(T) = a_i + b_i·T_i the result must be the plain solve with the
+    // source a_i + b_i·TNew_i fixed, and the boundary heat must be that solve's
+    const layers = [
+      { thicknessM: 0.01, intervals: 6, conductivityWPerMK: 167, volumetricHeatCapacity: 2.43e6 },
+      { thicknessM: 0.004, intervals: 16, conductivityWPerMK: 0.6, volumetricHeatCapacity: 1.6e6 },
+    ];
+    const col = createHeatColumn(layers, 60, 50);
+    const n = col.nodes;
+    const TOld = Float64Array.from({ length: n }, (_, i) => 400 + 0.2 * i);
+    const a = Float64Array.from({ length: n }, (_, i) => (i >= 6 ? 900 + 40 * i : 0));
+    const b = Float64Array.from({ length: n }, (_, i) => (i >= 6 ? 0.3 * col.capacity[i] * (1 + 0.01 * i) : 0));
+    const linear = new Float64Array(n);
+    const fixed = new Float64Array(n);
+    const source = new Float64Array(n);
+    const h1: BoundaryHeat = { bottomJPerM2: 0, topJPerM2: 0 };
+    const h2: BoundaryHeat = { bottomJPerM2: 0, topJPerM2: 0 };
+    prepareHeatStep(col, TOld, 40, 0.5, 420, 425, 420, 425);
+    solveHeatStep(col, TOld, linear, a, h1, b);
+    for (let i = 0; i < n; i++) source[i] = a[i] + b[i] * linear[i];
+    solveHeatStep(col, TOld, fixed, source, h2);
+    for (let i = 0; i < n; i++) expectClose(linear[i], fixed[i], 1e-13);
+    expectClose(h1.bottomJPerM2 + h1.topJPerM2, h2.bottomJPerM2 + h2.topJPerM2, 1e-9);
+    // the temperature-dependent part mattered: without it the result is another one
+    solveHeatStep(col, TOld, fixed, a, h2);
+    expect(Math.abs(linear[n - 1] - fixed[n - 1])).toBeGreaterThan(0.01);
+  });
+});
+
 describe('Thomas tridiagonal solve', () => {
   it('solves a small system exactly', () => {
     // [2 −1 0; −1 2 −1; 0 −1 2] x = [1 0 1] has x = [1 1 1] (by hand)

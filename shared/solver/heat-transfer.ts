@@ -54,6 +54,8 @@ export interface HeatColumn {
   /** the step prepared by prepareHeatStep: its right-hand side without the source, and the Thomas pivots' reciprocals */
   readonly baseRhs: Float64Array;
   readonly inversePivot: Float64Array;
+  /** elimination factors of a solve whose source depends on the new temperature (the matrix changes per solve) */
+  readonly linearScratch: Float64Array;
   readonly step: PreparedHeatStep;
 }
 
@@ -106,6 +108,7 @@ export function createHeatColumn(layers: readonly HeatLayer[], hBottomWPerM2K: n
     nodes, zM, capacity, conductance, hBottom: hBottomWPerM2K, hTop: hTopWPerM2K,
     lower: new Float64Array(nodes), diag: new Float64Array(nodes), upper: new Float64Array(nodes),
     rhs: new Float64Array(nodes), scratch: new Float64Array(nodes), baseRhs: new Float64Array(nodes), inversePivot: new Float64Array(nodes),
+    linearScratch: new Float64Array(nodes),
     step: {
       dtS: Number.NaN, theta: Number.NaN, bottomAirOldK: Number.NaN, bottomAirNewK: Number.NaN, topAirOldK: Number.NaN, topAirNewK: Number.NaN,
       factoredDtS: Number.NaN, factoredTheta: Number.NaN,
@@ -211,18 +214,37 @@ export function prepareHeatStep(
 }
 
 /**
- * Solve the step prepared by prepareHeatStep (same TOld) with the given source (Thomas substitutions with the
- * stored factors). Writes the split boundary heat into `heat` and returns the total, J/m².
+ * Solve the step prepared by prepareHeatStep (same TOld) with the given source: the heat released in node i's
+ * control volume over the step is sourceJPerM2[i] + sourcePerKJPerM2K[i]·TNew[i] when the second array is
+ * given (a source linearised in the node's new temperature, which moves into the matrix), sourceJPerM2[i]
+ * otherwise (Thomas substitutions with the stored factors). Writes the split boundary heat into `heat` and
+ * returns the total, J/m².
  */
-export function solveHeatStep(col: HeatColumn, TOld: Float64Array, TNew: Float64Array, sourceJPerM2: Float64Array | null, heat: BoundaryHeat): number {
+export function solveHeatStep(
+  col: HeatColumn, TOld: Float64Array, TNew: Float64Array, sourceJPerM2: Float64Array | null, heat: BoundaryHeat,
+  sourcePerKJPerM2K: Float64Array | null = null,
+): number {
   const n = col.nodes;
   const { lower, rhs, baseRhs, scratch, inversePivot, step } = col;
   const { dtS, theta } = step;
   if (!(dtS > 0)) throw new Error('solveHeatStep: no step prepared (call prepareHeatStep first)');
   for (let i = 0; i < n; i++) rhs[i] = sourceJPerM2 ? baseRhs[i] + sourceJPerM2[i] / dtS : baseRhs[i];
-  TNew[0] = rhs[0] * inversePivot[0];
-  for (let i = 1; i < n; i++) TNew[i] = (rhs[i] - lower[i] * TNew[i - 1]) * inversePivot[i];
-  for (let i = n - 2; i >= 0; i--) TNew[i] -= scratch[i + 1] * TNew[i + 1];
+  if (sourcePerKJPerM2K) {
+    // The diagonal loses sourcePerK/dt: eliminate afresh (the caller keeps it well under C/dt).
+    const { diag, upper, linearScratch: f } = col;
+    let inv = 1 / (diag[0] - sourcePerKJPerM2K[0] / dtS);
+    TNew[0] = rhs[0] * inv;
+    for (let i = 1; i < n; i++) {
+      f[i] = upper[i - 1] * inv;
+      inv = 1 / (diag[i] - sourcePerKJPerM2K[i] / dtS - lower[i] * f[i]);
+      TNew[i] = (rhs[i] - lower[i] * TNew[i - 1]) * inv;
+    }
+    for (let i = n - 2; i >= 0; i--) TNew[i] -= f[i + 1] * TNew[i + 1];
+  } else {
+    TNew[0] = rhs[0] * inversePivot[0];
+    for (let i = 1; i < n; i++) TNew[i] = (rhs[i] - lower[i] * TNew[i - 1]) * inversePivot[i];
+    for (let i = n - 2; i >= 0; i--) TNew[i] -= scratch[i + 1] * TNew[i + 1];
+  }
   // The same θ-weighted face fluxes the scheme used, so the bookkeeping matches the discrete balance.
   const ex = 1 - theta;
   heat.bottomJPerM2 = dtS * col.hBottom * (ex * (step.bottomAirOldK - TOld[0]) + theta * (step.bottomAirNewK - TNew[0]));

@@ -195,6 +195,25 @@ describe('coupling passes', () => {
     expect(Math.max(...s.alpha)).toBeGreaterThan(0.8);
     expect(worst).toBeLessThan(2e-7);
   });
+
+  it('with the reaction heat linearised in the new temperature, a reacting step in a steady hold settles in one pass', () => {
+    // Newton coupling (common practice, no source): the solve already meets the cure's response to its own
+    // heat, so once the first guess is close (steady air, steady step) no second pass is needed, where a plain
+    // fixed-point iteration needs at least two whenever the cure moves
+    const s = createThermochemical(study(40), { initialK: 110 + C0 });
+    const passes: number[] = [];
+    let moved = 0;
+    for (let i = 1; i <= 20; i++) {
+      const before = s.alpha[40];
+      advanceThermochemical(s, 30, 110 + C0, 110 + C0);
+      if (i > 3) {
+        passes.push(s.lastStep.passes);
+        moved = Math.max(moved, s.alpha[40] - before);
+      }
+    }
+    expect(moved).toBeGreaterThan(1e-3); // the cure really moves in these steps
+    expect(passes.filter((p) => p === 1).length).toBeGreaterThanOrEqual(12); // of 17
+  });
 });
 
 describe('robustness', () => {

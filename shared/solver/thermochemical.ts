@@ -6,21 +6,23 @@ import { ALPHA_MAX, advanceCureBatch, cureBatchSlopes, createCureBatch, cureRate
 
 // Heat and cure coupled through the reaction heat q = ρ_r (1 − V_f) H_R dα/dt (rules in shared/solver/README.md, "Model rules").
 //
-// Coupling choice: fixed-point (Picard) iteration inside each step, not operator splitting. Each pass integrates
-// the cure at every node over the whole step at the θ-weighted temperature T_θ = (1 − θ)Tⁿ + θTⁿ⁺¹ (the
-// step midpoint for Crank–Nicolson, so the coupling keeps the scheme's second order; splitting would drop it to
-// first), turns each node's cure increment into the exact heat released over the step, ρ_r(1 − V_f)H_R·Δα·V,
-// and solves the column with it. It stops when the temperature that fed the cure is close enough to the one
-// that came out that the cure increment would change by less than 1e-7 (bounded through the largest activation
-// energy: δ(Δα) ≈ Δα·θ·(E_max/RT² + C|α_CT|)·δT), and never before that temperature is within 1 K. A step
-// with no cure to speak of is therefore done after one pass; the first pass starts from Tⁿ⁺¹ extrapolated
-// from the last step, so a reacting step usually needs two. Only the first pass integrates the cure at every
-// node (all nodes at once, kinetics.advanceCureBatch, which can then give each increment's slope ∂α/∂T); later
-// passes move the temperature by hundredths of a kelvin and carry each increment over along that slope
-// when the neglected second-order part is below 1e-8, integrating again only where it is not. Because the
-// source is exactly the heat of the cure increments used, the energy balance closes to rounding for any
-// number of passes. If the passes do not settle (a step far too long for a runaway exotherm),
-// the step is split in halves internally, so the caller never sees an unconverged state.
+// Coupling choice: Newton-type iteration inside each step, not operator splitting. Each pass integrates the
+// cure over the whole step at the θ-weighted temperature T_θ = (1 − θ)Tⁿ + θTⁿ⁺¹ (the step midpoint for
+// Crank–Nicolson, so the coupling keeps the scheme's second order; splitting would drop it to first) at every
+// node that needs it (all at once, kinetics.advanceCureBatch), with each increment's slope S = ∂α/∂T. The
+// column is then solved with the reaction heat of the linearised cure, ρ_r(1 − V_f)H_R·V·(Δα + S·δT_θ): the part
+// in the new temperature moves into the matrix, so the solve already meets the cure's response to its own heat,
+// and each node's α is set from the temperature that came out by the same linear expression, so the source is
+// exactly the heat of the cure increments kept and the energy balance closes to rounding for any number of
+// passes. A step is done when every node's neglected second-order part is under 1e-8. Otherwise the next
+// pass integrates again, at the temperature that came out, only the nodes where it is not; that pass's
+// change of temperature is second order, so a reacting step needs one pass, or two after a sudden change of
+// the air's ramp (the first guess extrapolates the last step linearly). A node with no slope (its increment
+// needed sub-steps) or with a reaction steep enough to take half its heat capacity out of the diagonal is
+// iterated plainly: integrated at every pass until its increment would change by under 1e-7 with the last
+// pass's change of temperature (bounded through the largest activation energy:
+// δ(Δα) ≈ Δα·θ·(E_max/RT² + C|α_CT|)·δT). If the passes do not settle (a step far too long for a runaway
+// exotherm), the step is split in halves internally, so the caller never sees an unconverged state.
 
 /** What the coupled column needs from a study (a structural subset of StudyParams, engineering units). */
 export type ThermochemicalParams = Pick<StudyParams, 'resin' | 'fibre' | 'fibreVolumeFraction' | 'layup' | 'tool' | 'heatTransfer' | 'mesh'>;
@@ -98,6 +100,10 @@ export interface ThermochemicalState {
     cureNodes: Int32Array; cureBatch: CureBatch;
     /** per laminate node: kinetic temperature and result of its last full cure integration, and ∂α/∂T there */
     TFull: Float64Array; alphaFull: Float64Array; slope: Float64Array;
+    /** per laminate node: the slope the coupled solve linearises its cure with (0: iterated plainly) */
+    linear: Float64Array;
+    /** per column node: the part of the reaction heat proportional to the new temperature, J/(m²·K) */
+    sourcePerK: Float64Array;
     /** per laminate node: the bound on ∂ln(Δα)/∂T at its kinetic temperature this pass */
     sensitivity: Float64Array;
     /** stored heat of the start field T0, J/m² */
@@ -180,6 +186,7 @@ export function createThermochemical(p: ThermochemicalParams, options: Thermoche
       heat: { bottomJPerM2: 0, topJPerM2: 0 }, prevDtS: 0,
       cureNodes: new Int32Array(nLam), cureBatch: createCureBatch(nLam),
       TFull: new Float64Array(nLam), alphaFull: new Float64Array(nLam), slope: new Float64Array(nLam),
+      linear: new Float64Array(nLam), sourcePerK: new Float64Array(n),
       sensitivity: new Float64Array(nLam), storedHeat0: storedHeat(column, allTK),
     },
   };
@@ -187,11 +194,9 @@ export function createThermochemical(p: ThermochemicalParams, options: Thermoche
 
 /** A module-private copy (a hot loop compares with it; kinetics.ts says why). */
 const CURE_CAP = ALPHA_MAX;
-/** Largest change of a node's cure increment that the coupling passes may leave unresolved. */
+/** Largest change of a plainly iterated node's cure increment that the coupling passes may leave unresolved. */
 const COUPLING_ALPHA_TOL = 1e-7;
-/** ...and the temperature fed to the cure must be this close to the result whatever the cure. */
-const COUPLING_MAX_K = 1;
-/** Largest second-order error a pass may leave by carrying a cure increment over linearly (see tryStep). */
+/** Largest second-order error a pass may leave in a linearised node's cure increment (see tryStep). */
 const LINEAR_ALPHA_TOL = 0.1 * COUPLING_ALPHA_TOL;
 const MAX_PASSES = 12;
 const MAX_SPLIT_DEPTH = 12;
@@ -224,10 +229,24 @@ function advanceSplitting(s: ThermochemicalState, dtS: number, airK: number, too
   advanceSplitting(s, dtS / 2, airK, toolAirK, depth + 1);
 }
 
-// One step with Picard passes; commits and returns true when converged, leaves the state untouched otherwise.
+/**
+ * The neglected second-order part of a node's cure increment carried linearly from its full integration,
+ * α(T_full + δ) ≈ α_full + Sδ (kinetic temperatures, δ in K; dA = α_full − α_old): ½(Sδ)²/dA for an
+ * Arrhenius-like exponential growth plus ½κδ²dA for the curvature κ of ln(rate) in T (the Arrhenius curvature,
+ * the spread between two Arrhenius terms, the diffusion factor's logistic).
+ */
+function linearRemainder(S: number, dA: number, Tk: number, delta: number, eMaxOverR: number, eSpreadOverR: number, diffusionSens: number): number {
+  const invT2 = 1 / (Tk * Tk);
+  const spread = eSpreadOverR * invT2;
+  const kappa = (2 * eMaxOverR * invT2) / Tk + 0.25 * spread * spread + 0.25 * diffusionSens * diffusionSens;
+  const change = S * delta;
+  return (dA > 0 ? (0.5 * change * change) / dA : change === 0 ? 0 : Infinity) + 0.5 * kappa * delta * delta * dA;
+}
+
+// One step with coupling passes; commits and returns true when converged, leaves the state untouched otherwise.
 function tryStep(s: ThermochemicalState, dtS: number, airK: number, toolAirK: number): boolean {
   const { column, kinetics: k, theta, alpha, nodeLaminateM, laminateStart: off, allTK } = s;
-  const { TOld, TNew, TGuess, TPrev, source, alphaOld, alphaNew, TKin, heat, cureNodes, cureBatch, TFull, alphaFull, slope, sensitivity } = s.work;
+  const { TOld, TNew, TGuess, TPrev, source, sourcePerK, alphaOld, alphaNew, TKin, heat, cureNodes, cureBatch, TFull, alphaFull, slope, linear, sensitivity } = s.work;
   const n = column.nodes;
   const nLam = alpha.length;
   TOld.set(allTK);
@@ -236,74 +255,79 @@ function tryStep(s: ThermochemicalState, dtS: number, airK: number, toolAirK: nu
   const w = s.work.prevDtS > 0 ? dtS / s.work.prevDtS : 0;
   for (let i = 0; i < n; i++) TGuess[i] = TOld[i] + w * (TOld[i] - TPrev[i]);
   const qPerAlpha = s.reactionEnergyJPerM3;
+  const capacity = column.capacity;
   // d ln(Δα)/dT bound per kelvin, without the 1/T² of the Arrhenius part (applied per node).
   const eMaxOverR = Math.max(k.a1 !== 0 ? k.e1OverR : 0, k.a2 !== 0 ? k.e2OverR : 0, k.a3 !== 0 ? k.e3OverR : 0);
   const diffusionSens = k.hasDiffusion ? k.diffusionC * Math.abs(k.diffusionAlphaCTPerK) : 0;
-  // Second-derivative bound of ln(Δα) in T per node (the Arrhenius curvature, the spread between two
-  // Arrhenius terms, the diffusion factor's logistic), for the remainder of the linear update below.
+  // for linearRemainder: the spread between the Arrhenius terms
   const eMinOverR = Math.min(k.a1 !== 0 ? k.e1OverR : Infinity, k.a2 !== 0 ? k.e2OverR : Infinity, k.a3 !== 0 ? k.e3OverR : Infinity);
   const eSpreadOverR = Number.isFinite(eMinOverR) ? eMaxOverR - eMinOverR : 0;
   prepareHeatStep(column, TOld, dtS, theta, s.toolAirK, toolAirK, s.airK, airK);
   let passes = 1;
   let converged = false;
-  let count = 0; // nodes of the last full integration, in cureNodes
   for (; passes <= MAX_PASSES; passes++) {
-    // The slopes of the last integration, needed only now that another pass is needed.
-    if (passes > 1 && count > 0) cureBatchSlopes(k, cureBatch, cureNodes, count, dtS, slope);
-    count = 0;
+    // 1. The cure at this pass's kinetic temperature: integrated in full where the linearisation about the
+    //    node's last full integration would leave more than LINEAR_ALPHA_TOL (or the node has none).
+    let count = 0;
     for (let j = 0; j < nLam; j++) {
       const Tk = (1 - theta) * TOld[off + j] + theta * TGuess[off + j];
       TKin[j] = Tk;
       sensitivity[j] = eMaxOverR / (Tk * Tk) + diffusionSens;
       if (passes > 1) {
-        // Later passes move the kinetic temperature by little: carry the cure increment of the last full
-        // integration over by its slope ∂α/∂T when the neglected second-order part, ½(Sδ)²/Δα for an
-        // Arrhenius-like exponential growth plus ½κδ²Δα for the curvature of ln(rate) in T, stays under
-        // LINEAR_ALPHA_TOL; otherwise integrate again.
         const delta = Tk - TFull[j];
-        const S = slope[j];
         const dA = alphaFull[j] - alphaOld[j];
-        if (delta === 0) {
-          alphaNew[j] = alphaFull[j];
-          continue;
-        }
-        if (Number.isFinite(S)) {
-          const invT2 = 1 / (Tk * Tk);
-          const spread = eSpreadOverR * invT2;
-          const kappa = (2 * eMaxOverR * invT2) / Tk + 0.25 * spread * spread + 0.25 * diffusionSens * diffusionSens;
-          const change = S * delta;
-          const remainder = (dA > 0 ? (0.5 * change * change) / dA : change === 0 ? 0 : Infinity) + 0.5 * kappa * delta * delta * dA;
-          if (remainder <= LINEAR_ALPHA_TOL) {
-            const a = alphaFull[j] + change;
-            alphaNew[j] = a < alphaOld[j] ? alphaOld[j] : a > CURE_CAP ? CURE_CAP : a;
-            continue;
-          }
-        }
+        if (delta === 0 || (linear[j] !== 0 && linearRemainder(linear[j], dA, Tk, delta, eMaxOverR, eSpreadOverR, diffusionSens) <= LINEAR_ALPHA_TOL)) continue;
       }
       cureNodes[count++] = j;
     }
     advanceCureBatch(k, alphaOld, TKin, dtS, alphaNew, cureNodes, count, cureBatch);
+    cureBatchSlopes(k, cureBatch, cureNodes, count, dtS, slope);
     for (let i = 0; i < count; i++) {
       const j = cureNodes[i];
       TFull[j] = TKin[j];
       alphaFull[j] = alphaNew[j];
+      // Linearise in the node's temperature (Newton coupling) unless there is no slope (a sub-stepped node) or
+      // the reaction heat would take half the node's heat capacity out of the diagonal (a runaway in the
+      // step; such a node is iterated plainly, and the step halved if that does not settle).
+      const S = slope[j];
+      const qL = qPerAlpha * nodeLaminateM[j];
+      linear[j] = Number.isFinite(S) && qL * S * theta < 0.5 * capacity[off + j] ? S : 0;
     }
-    for (let j = 0; j < nLam; j++) source[off + j] = qPerAlpha * nodeLaminateM[j] * (alphaNew[j] - alphaOld[j]);
-    solveHeatStep(column, TOld, TNew, source, heat);
-    let worstT = 0;
-    let worstAlpha = 0;
-    for (let i = 0; i < n; i++) {
-      const d = Math.abs(TNew[i] - TGuess[i]);
-      if (d > worstT) worstT = d;
-      if (i >= off) {
-        const j = i - off;
-        const da = theta * d * sensitivity[j] * (alphaNew[j] - alphaOld[j]);
-        if (da > worstAlpha) worstAlpha = da;
+    // 2. The column with the reaction heat of α_j(T) = α_full + S(T_θ − T_full): the part in the new
+    //    temperature moves into the matrix, so the solve meets the cure's response to its own heat.
+    for (let j = 0; j < nLam; j++) {
+      const qL = qPerAlpha * nodeLaminateM[j];
+      const L = linear[j];
+      source[off + j] = qL * (alphaFull[j] - alphaOld[j] + L * ((1 - theta) * TOld[off + j] - TFull[j]));
+      sourcePerK[off + j] = qL * L * theta;
+    }
+    solveHeatStep(column, TOld, TNew, source, heat, sourcePerK);
+    // 3. Each node's cure at the temperature that came out, the same expression the source used; converged
+    //    when every linearised node is inside LINEAR_ALPHA_TOL and every other node's increment would move by
+    //    less than COUPLING_ALPHA_TOL with the temperature change of this pass.
+    let settled = true;
+    let finite = true;
+    for (let j = 0; j < nLam; j++) {
+      const i = off + j;
+      const dA = alphaFull[j] - alphaOld[j];
+      const L = linear[j];
+      if (L !== 0) {
+        const Tk = (1 - theta) * TOld[i] + theta * TNew[i];
+        const delta = Tk - TFull[j];
+        const a = alphaFull[j] + L * delta;
+        alphaNew[j] = a;
+        if (!(a >= alphaOld[j] && a <= CURE_CAP && linearRemainder(L, dA, Tk, delta, eMaxOverR, eSpreadOverR, diffusionSens) <= LINEAR_ALPHA_TOL)) settled = false;
+      } else {
+        alphaNew[j] = alphaFull[j];
+        if (!(theta * Math.abs(TNew[i] - TGuess[i]) * sensitivity[j] * dA < COUPLING_ALPHA_TOL)) settled = false;
       }
+    }
+    for (let i = 0; i < n; i++) {
+      if (!Number.isFinite(TNew[i])) finite = false;
       TGuess[i] = TNew[i];
     }
-    if (!Number.isFinite(worstT)) break;
-    if (worstAlpha < COUPLING_ALPHA_TOL && worstT < COUPLING_MAX_K) {
+    if (!finite) break;
+    if (settled) {
       converged = true;
       break;
     }
