@@ -217,20 +217,46 @@ function powerOfKind(x: number, p: number, kind: number): number {
 
 // The rate for rate constants already evaluated at the temperature (K1..K3) and the diffusion centre
 // α_C0 + α_CT·T; `upper` selects the Lee–Loos–Springer branch. Never negative (a negative K1 + K2α at low
-// temperature means no reaction, not un-curing), never NaN.
-function rateAt(k: PreparedKinetics, K1: number, K2: number, K3: number, centre: number, alpha: number, upper: boolean): number {
-  return withDiffusion(k, chemicalRate(k, K1, K2, K3, alpha, upper), centre, alpha);
+// temperature means no reaction, not un-curing), never NaN. `from` is the α the integration step started
+// from and `expFrom` = e^(C(from − centre)) there (see diffusionExp).
+function rateAt(k: PreparedKinetics, K1: number, K2: number, K3: number, centre: number, alpha: number, upper: boolean, from: number, expFrom: number): number {
+  return withDiffusion(k, chemicalRate(k, K1, K2, K3, alpha, upper), centre, alpha, from, expFrom);
 }
 
 /** A chemical rate r (any sign) times the diffusion factor at α; 0 unless r > 0. */
-function withDiffusion(k: PreparedKinetics, r: number, centre: number, alpha: number): number {
+function withDiffusion(k: PreparedKinetics, r: number, centre: number, alpha: number, from: number, expFrom: number): number {
   if (!(r > 0)) return 0;
   if (k.hasDiffusion) {
     // Below −40 the exponential is under 1e-17 of 1: f_d is 1 to double precision, skip it.
     const x = k.diffusionC * (alpha - centre);
-    if (x > -40) return r / (1 + Math.exp(x));
+    if (x > -40) return r / (1 + diffusionExp(k.diffusionC, alpha, centre, from, expFrom));
   }
   return r;
+}
+
+/** Half-width of the span of C(α − from) over which diffusionExp uses its series. */
+const SERIES_SPAN = 0.5;
+
+/**
+ * e^(C(α − centre)) for the diffusion factor at a stage of an integration step that started from α = from,
+ * where expFrom = e^(C(from − centre)): expFrom·e^(C(α − from)), the second factor by its Taylor series to
+ * the 12th power while |C(α − from)| ≤ ½ (relative error under 3e-14; a stage sits within the step's Δα of
+ * its start), e^(C(α − centre)) itself otherwise. One exponential per step instead of one per stage.
+ */
+function diffusionExp(c: number, alpha: number, centre: number, from: number, expFrom: number): number {
+  const u = c * (alpha - from);
+  if (u >= -SERIES_SPAN && u <= SERIES_SPAN) {
+    const series =
+      1 + u * (1 + u * (1 / 2 + u * (1 / 6 + u * (1 / 24 + u * (1 / 120 + u * (1 / 720 + u * (1 / 5040 + u * (1 / 40320 +
+      u * (1 / 362880 + u * (1 / 3628800 + u * (1 / 39916800 + u * (1 / 479001600))))))))))));
+    return expFrom * series;
+  }
+  return Math.exp(c * (alpha - centre));
+}
+
+/** e^(C(α − centre)) at the start of an integration step (0 without a diffusion factor: never read then). */
+function expAtStart(k: PreparedKinetics, alpha: number, centre: number): number {
+  return k.hasDiffusion ? Math.exp(k.diffusionC * (alpha - centre)) : 0;
 }
 
 /** The rate before the diffusion factor (may be ≤ 0 or NaN: rateAt turns that into 0). */
@@ -270,7 +296,8 @@ export function cureRate(k: PreparedKinetics, alpha: number, TK: number): number
   const K1 = arrhenius(k.a1, k.e1OverR, TK);
   const K2 = arrhenius(k.a2, k.e2OverR, TK);
   const K3 = arrhenius(k.a3, k.e3OverR, TK);
-  return rateAt(k, K1, K2, K3, k.diffusionAlphaC0 + k.diffusionAlphaCTPerK * TK, alpha, isUpperBranch(k, alpha));
+  const centre = k.diffusionAlphaC0 + k.diffusionAlphaCTPerK * TK;
+  return rateAt(k, K1, K2, K3, centre, alpha, isUpperBranch(k, alpha), alpha, expAtStart(k, alpha, centre));
 }
 
 // Dormand–Prince 5(4) (Dormand & Prince, J. Comput. Appl. Math. 6, 1980): embedded pair with FSAL.
@@ -292,15 +319,15 @@ const step: StepResult = { alpha: 0, error: 0, endRate: 0 };
 
 function dormandPrince(
   k: PreparedKinetics, K1: number, K2: number, K3: number, centre: number, upper: boolean,
-  a: number, f1: number, h: number, out: StepResult,
+  a: number, ea: number, f1: number, h: number, out: StepResult,
 ): void {
-  const f2 = rateAt(k, K1, K2, K3, centre, a + h * (A21 * f1), upper);
-  const f3 = rateAt(k, K1, K2, K3, centre, a + h * (A31 * f1 + A32 * f2), upper);
-  const f4 = rateAt(k, K1, K2, K3, centre, a + h * (A41 * f1 + A42 * f2 + A43 * f3), upper);
-  const f5 = rateAt(k, K1, K2, K3, centre, a + h * (A51 * f1 + A52 * f2 + A53 * f3 + A54 * f4), upper);
-  const f6 = rateAt(k, K1, K2, K3, centre, a + h * (A61 * f1 + A62 * f2 + A63 * f3 + A64 * f4 + A65 * f5), upper);
+  const f2 = rateAt(k, K1, K2, K3, centre, a + h * (A21 * f1), upper, a, ea);
+  const f3 = rateAt(k, K1, K2, K3, centre, a + h * (A31 * f1 + A32 * f2), upper, a, ea);
+  const f4 = rateAt(k, K1, K2, K3, centre, a + h * (A41 * f1 + A42 * f2 + A43 * f3), upper, a, ea);
+  const f5 = rateAt(k, K1, K2, K3, centre, a + h * (A51 * f1 + A52 * f2 + A53 * f3 + A54 * f4), upper, a, ea);
+  const f6 = rateAt(k, K1, K2, K3, centre, a + h * (A61 * f1 + A62 * f2 + A63 * f3 + A64 * f4 + A65 * f5), upper, a, ea);
   const a5 = a + h * (B1 * f1 + B3 * f3 + B4 * f4 + B5 * f5 + B6 * f6);
-  const f7 = rateAt(k, K1, K2, K3, centre, a5, upper);
+  const f7 = rateAt(k, K1, K2, K3, centre, a5, upper, a, ea);
   out.alpha = a5;
   out.endRate = f7;
   out.error = stepError(h, f1, f3, f4, f5, f6, f7);
@@ -331,7 +358,8 @@ export function advanceCure(k: PreparedKinetics, alpha: number, TK: number, dtS:
   const centre = k.diffusionAlphaC0 + k.diffusionAlphaCTPerK * TK;
   const lls = k.formCode === LEE_LOOS_SPRINGER;
   let upper = isUpperBranch(k, a);
-  let f = rateAt(k, K1, K2, K3, centre, a, upper);
+  let ea = expAtStart(k, a, centre); // e^(C(a − centre)), renewed whenever a moves (diffusionExp)
+  let f = rateAt(k, K1, K2, K3, centre, a, upper, a, ea);
   let t = 0;
   let h = dtS;
   for (let i = 0; i < MAX_SUBSTEPS; i++) {
@@ -342,18 +370,20 @@ export function advanceCure(k: PreparedKinetics, alpha: number, TK: number, dtS:
     // An explicit step should not leap most of the way to the end of the reaction in one go.
     const room = (lls && !upper ? k.b : 1) - a;
     if (h * f > 0.5 * room) h = (0.5 * room) / f;
-    dormandPrince(k, K1, K2, K3, centre, upper, a, f, h, step);
+    dormandPrince(k, K1, K2, K3, centre, upper, a, ea, f, h, step);
     const tol = toleranceAt(k, a);
     const err = step.error;
     if (err <= tol) {
       if (lls && !upper && step.alpha >= SWITCH_ALPHA) {
-        t += landOnSwitch(k, K1, K2, K3, centre, a, f, h, (SWITCH_ALPHA - a) / (step.alpha - a));
+        t += landOnSwitch(k, K1, K2, K3, centre, a, ea, f, h, (SWITCH_ALPHA - a) / (step.alpha - a));
         a = SWITCH_ALPHA;
         upper = true;
-        f = rateAt(k, K1, K2, K3, centre, a, true);
+        ea = expAtStart(k, a, centre);
+        f = rateAt(k, K1, K2, K3, centre, a, true, a, ea);
       } else {
         const next = step.alpha < CAP ? step.alpha : CAP;
         if (next > a) a = next;
+        ea = expAtStart(k, a, centre);
         f = step.endRate;
         t += h;
       }
@@ -379,11 +409,11 @@ function stepFactor(err: number, tol: number): number {
 // g'(s) = f(Φ(s)), where Φ is the Dormand–Prince step map of the lower branch (smooth across 0.3).
 function landOnSwitch(
   k: PreparedKinetics, K1: number, K2: number, K3: number, centre: number,
-  a: number, f: number, hMax: number, fraction: number,
+  a: number, ea: number, f: number, hMax: number, fraction: number,
 ): number {
   let s = hMax * Math.min(Math.max(fraction, 0), 1);
   for (let it = 0; it < 20; it++) {
-    dormandPrince(k, K1, K2, K3, centre, false, a, f, s, step);
+    dormandPrince(k, K1, K2, K3, centre, false, a, ea, f, s, step);
     const g = step.alpha - SWITCH_ALPHA;
     if (Math.abs(g) < 1e-14 || step.endRate <= 0) break;
     let next = s - g / step.endRate;
@@ -403,6 +433,8 @@ export interface CureBatch {
   readonly K2: Float64Array;
   readonly K3: Float64Array;
   readonly centre: Float64Array;
+  /** e^(C(a − centre)) per listed node (diffusionExp) */
+  readonly ea: Float64Array;
   /** the stage rates f1..f7 of the Dormand–Prince step */
   readonly f: readonly Float64Array[];
   /** the α each stage evaluates the rate at (the 5th-order end value after the last stage) */
@@ -425,7 +457,7 @@ export interface CureBatch {
 export function createCureBatch(size: number, withRetry = true): CureBatch {
   const a = () => new Float64Array(size);
   return {
-    size, a: a(), K1: a(), K2: a(), K3: a(), centre: a(), f: [a(), a(), a(), a(), a(), a(), a()], x: a(), T: a(), g0: a(), g1: a(),
+    size, a: a(), K1: a(), K2: a(), K3: a(), centre: a(), ea: a(), f: [a(), a(), a(), a(), a(), a(), a()], x: a(), T: a(), g0: a(), g1: a(),
     own: new Uint8Array(size), h: a(), t: a(), at: new Int32Array(size), retry: withRetry ? createCureBatch(size, false) : null,
   };
 }
@@ -438,7 +470,7 @@ export function createCureBatch(size: number, withRetry = true): CureBatch {
 // rateAt at x[i] for the listed nodes into out[i]: the chemical rate, then the diffusion factor in a loop of
 // its own (withDiffusion(), written out: as a call it was not inlined and boxed its three numbers).
 function stageRates(k: PreparedKinetics, w: CureBatch, count: number, out: Float64Array): void {
-  const { a, K1, K2, K3, centre, x } = w;
+  const { a, K1, K2, K3, centre, ea, x } = w;
   if (k.formCode === KAMAL_SOUROUR) {
     for (let i = 0; i < count; i++) out[i] = kamalSourourRate(k, K1[i], K2[i], x[i]);
   } else if (k.formCode === NTH_ORDER) {
@@ -454,7 +486,7 @@ function stageRates(k: PreparedKinetics, w: CureBatch, count: number, out: Float
     else if (diffusion) {
       // Below −40 the exponential is under 1e-17 of 1: f_d is 1 to double precision (as in withDiffusion).
       const y = c * (x[i] - centre[i]);
-      if (y > -40) out[i] = r / (1 + Math.exp(y));
+      if (y > -40) out[i] = r / (1 + diffusionExp(c, x[i], centre[i], a[i], ea[i]));
     }
   }
 }
@@ -523,6 +555,7 @@ export function advanceCureBatch(
     x[i] = a0[i];
   }
   stageConstants(k, w, count);
+  for (let i = 0; i < count; i++) w.ea[i] = expAtStart(k, a0[i], w.centre[i]);
   stageRates(k, w, count, w.f[0]);
   w.h.fill(dtS, 0, count);
   dormandPrinceStages(k, w, count);
@@ -631,6 +664,7 @@ function continueCureBatch(k: PreparedKinetics, q: CureBatch, count: number, dtS
       if (err <= tol) {
         const next = x[r] < CAP ? x[r] : CAP;
         if (next > a[r]) a[r] = next;
+        q.ea[r] = expAtStart(k, a[r], q.centre[r]);
         f1[r] = f7[r];
         t[r] += h[r];
         if (t[r] >= dtS * (1 - 1e-14)) {
@@ -653,6 +687,7 @@ function copySubStepState(from: CureBatch, i: number, to: CureBatch, r: number):
   to.K2[r] = from.K2[i];
   to.K3[r] = from.K3[i];
   to.centre[r] = from.centre[i];
+  to.ea[r] = from.ea[i];
   to.f[0][r] = from.f[0][i];
   to.h[r] = from.h[i];
   to.t[r] = from.t[i];
