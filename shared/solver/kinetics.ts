@@ -236,6 +236,9 @@ function withDiffusion(k: PreparedKinetics, r: number, centre: number, alpha: nu
 
 /** Half-width of the span of C(α − from) over which diffusionExp uses its series. */
 const SERIES_SPAN = 0.5;
+// 1/k! for the series
+const I2 = 1 / 2, I3 = 1 / 6, I4 = 1 / 24, I5 = 1 / 120, I6 = 1 / 720, I7 = 1 / 5040, I8 = 1 / 40320;
+const I9 = 1 / 362880, I10 = 1 / 3628800, I11 = 1 / 39916800, I12 = 1 / 479001600;
 
 /**
  * e^(C(α − centre)) for the diffusion factor at a stage of an integration step that started from α = from,
@@ -246,10 +249,12 @@ const SERIES_SPAN = 0.5;
 function diffusionExp(c: number, alpha: number, centre: number, from: number, expFrom: number): number {
   const u = c * (alpha - from);
   if (u >= -SERIES_SPAN && u <= SERIES_SPAN) {
-    const series =
-      1 + u * (1 + u * (1 / 2 + u * (1 / 6 + u * (1 / 24 + u * (1 / 120 + u * (1 / 720 + u * (1 / 5040 + u * (1 / 40320 +
-      u * (1 / 362880 + u * (1 / 3628800 + u * (1 / 39916800 + u * (1 / 479001600))))))))))));
-    return expFrom * series;
+    // Estrin's grouping of the same sum: its products are independent, so they overlap.
+    const u2 = u * u;
+    const u4 = u2 * u2;
+    const low = 1 + u + u2 * (I2 + u * I3) + u4 * (I4 + u * I5 + u2 * (I6 + u * I7));
+    const high = I8 + u * I9 + u2 * (I10 + u * I11) + u4 * I12;
+    return expFrom * (low + u4 * u4 * high);
   }
   return Math.exp(c * (alpha - centre));
 }
