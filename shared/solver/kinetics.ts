@@ -560,7 +560,8 @@ export function advanceCureBatch(
     x[i] = a0[i];
   }
   stageConstants(k, w, count);
-  for (let i = 0; i < count; i++) w.ea[i] = expAtStart(k, a0[i], w.centre[i]);
+  // expAtStart(), written out: as a call here it was not inlined and boxed its result
+  if (k.hasDiffusion) for (let i = 0; i < count; i++) w.ea[i] = Math.exp(k.diffusionC * (a0[i] - w.centre[i]));
   stageRates(k, w, count, w.f[0]);
   w.h.fill(dtS, 0, count);
   dormandPrinceStages(k, w, count);
@@ -669,7 +670,7 @@ function continueCureBatch(k: PreparedKinetics, q: CureBatch, count: number, dtS
       if (err <= tol) {
         const next = x[r] < CAP ? x[r] : CAP;
         if (next > a[r]) a[r] = next;
-        q.ea[r] = expAtStart(k, a[r], q.centre[r]);
+        q.ea[r] = k.hasDiffusion ? Math.exp(k.diffusionC * (a[r] - q.centre[r])) : 0; // expAtStart(), written out
         f1[r] = f7[r];
         t[r] += h[r];
         if (t[r] >= dtS * (1 - 1e-14)) {

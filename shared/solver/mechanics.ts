@@ -311,8 +311,11 @@ function advanceStep(state: MechanicsState, TK: Float64Array, alpha: Float64Arra
     lam.active[p] = 1;
     const termBase = p * terms;
     if (same) {
-      lam.e.copyWithin(termBase, termBase - terms, termBase);
-      lam.sg.copyWithin(termBase, termBase - terms, termBase);
+      // a loop, not copyWithin: for a handful of terms the builtin's call costs three times the copy
+      for (let i = 0; i < terms; i++) {
+        lam.e[termBase + i] = lam.e[termBase - terms + i];
+        lam.sg[termBase + i] = lam.sg[termBase - terms + i];
+      }
       state.prevShrink[p] = state.prevShrink[p - 1];
     } else {
       // A point that gels in this step does so where α crosses α_gel, found by linear interpolation in α
