@@ -512,8 +512,9 @@ function stageConstants(k: PreparedKinetics, w: CureBatch, count: number): void 
 // ∂ln f/∂T at the start (α₀, rate f1) and the end (x, rate f7) of the step, where the rate is > 0: each
 // Arrhenius term contributes its E/RT² weighted by its share of the rate, the diffusion factor C·α_CT·(1 − f_d).
 function stageSlopes(k: PreparedKinetics, w: CureBatch, count: number): void {
-  const { a, K1, K2, K3, T } = w;
-  const diffusionSlope = k.hasDiffusion ? k.diffusionC * k.diffusionAlphaCTPerK : 0;
+  const { a, K1, K2, T, centre, ea } = w;
+  const c = k.diffusionC;
+  const diffusionSlope = k.hasDiffusion ? c * k.diffusionAlphaCTPerK : 0;
   for (let end = 0; end < 2; end++) {
     const alpha = end === 0 ? a : w.x;
     const rate = end === 0 ? w.f[0] : w.f[6];
@@ -532,7 +533,11 @@ function stageSlopes(k: PreparedKinetics, w: CureBatch, count: number): void {
         eOverR = (K1[i] * k.e1OverR + u * k.e2OverR) / (K1[i] + u);
       }
       let g = eOverR / (T[i] * T[i]);
-      if (k.hasDiffusion) g += diffusionSlope * (1 - r / chemicalRate(k, K1[i], K2[i], K3[i], x, upper));
+      if (k.hasDiffusion && c * (x - centre[i]) > -40) {
+        // 1 − f_d = e/(1 + e) with the exponential the stage rates used (diffusionExp from the step's start)
+        const e = diffusionExp(c, x, centre[i], a[i], ea[i]);
+        g += diffusionSlope * (e / (1 + e));
+      }
       out[i] = r > 0 ? g : 0;
     }
   }
