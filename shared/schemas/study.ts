@@ -7,6 +7,8 @@ import { describeRange, formatValue, inRange, label, quantity, type Range } from
 
 /** Air below this needs active cooling; a dwell there must follow a cool segment. */
 export const ROOM_TEMPERATURE_C = 20;
+/** Finest laminate mesh: nodes per ply (a stored study has at least 2; a quick look may solve with 1). */
+export const MAX_NODES_PER_PLY = 6;
 /** Upper bound on laminate mesh nodes (plies × nodes per ply); keeps one solve interactive. */
 export const MAX_LAMINATE_NODES = 400;
 /** Longest cycle a study may schedule (14 days): keeps one solve bounded; real cures are hours to a day or two. */
@@ -335,7 +337,7 @@ export const studyParamsSchema = z
       bagSideWPerM2K: quantity({ min: 1, max: 5000, unit: 'W/(m²·K)' }),
       toolSideWPerM2K: quantity({ min: 1, max: 5000, unit: 'W/(m²·K)' }),
     }),
-    mesh: z.object({ nodesPerPly: quantity({ min: 2, max: 6, int: true }) }),
+    mesh: z.object({ nodesPerPly: quantity({ min: 2, max: MAX_NODES_PER_PLY, int: true }) }),
     cycle: cycleSchema,
     constraint: z.enum(['free', 'tool-held'], {
       error: (iss) => `unknown constraint ${formatValue(iss.input)}: allowed 'free', 'tool-held'`,

@@ -361,6 +361,30 @@ describe('simulate: preview limits', () => {
     expect(Math.abs(quick.warpageMm - tight.warpageMm)).toBeLessThan(0.1 * Math.abs(tight.warpageMm - full.warpageMm));
   });
 
+  it('its nodes on the ply faces only move the results by far less than its longer steps do, on every demo study', () => {
+    // spatial convergence (common practice, no source): a ply is thin against the thermal length of the
+    // cycle, so its temperature and cure are all but linear between its faces
+    for (const { name, params } of demoStudies()) {
+      const faces = simulate(params, PREVIEW_OPTIONS);
+      const mid = simulate(params, { ...PREVIEW_OPTIONS, nodesPerPly: 2 });
+      const full = simulate(params);
+      expect(faces.nodes.zM.length, name).toBe(params.layup.plies.length + 1);
+      const mesh = (a: number, b: number) => Math.abs(a - b);
+      expect(mesh(faces.summary.peakPartC, mid.summary.peakPartC), name).toBeLessThan(1e-3);
+      expect(mesh(faces.summary.maxGradientC, mid.summary.maxGradientC), name).toBeLessThan(1e-2);
+      expect(mesh(faces.summary.finalCureMin, mid.summary.finalCureMin), name).toBeLessThan(1e-5);
+      expect(Math.abs(faces.summary.warpageMm / mid.summary.warpageMm - 1), name).toBeLessThan(0.1 * Math.abs(mid.summary.warpageMm / full.summary.warpageMm - 1) + 5e-4);
+    }
+  });
+
+  it('refuses a mesh override that is not a whole number of nodes per ply within the laminate limit, and names it', () => {
+    for (const bad of [0, 1.5, 7]) {
+      expect(() => simulate(referenceStudy(), { nodesPerPly: bad })).toThrow(/options\.nodesPerPly: .* is out of range: allowed a whole number ≥ 1 and ≤ 6/);
+    }
+    const thick = parseStudy({ ...referenceStudy(), layup: { plies: quasiIsotropic(200) } });
+    expect(() => simulate(thick, { nodesPerPly: 3 })).toThrow(/allowed a whole number ≥ 1 and ≤ 2 \(200 plies, ≤ 400 laminate nodes\)/);
+  });
+
   it('refuses a cure tolerance outside (0, 1e-3] and names the option', () => {
     expect(() => simulate(referenceStudy(), { cureTolerance: 0 })).toThrow(/options\.cureTolerance: 0 is out of range: allowed > 0 and ≤ 1e-3/);
     expect(() => simulate(referenceStudy(), { cureTolerance: 0.01 })).toThrow(StudyInputError);

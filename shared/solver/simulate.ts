@@ -1,4 +1,4 @@
-import { StudyInputError, validateStudy, type StudyParamsInput } from '../schemas/study';
+import { MAX_LAMINATE_NODES, MAX_NODES_PER_PLY, StudyInputError, validateStudy, type StudyParamsInput } from '../schemas/study';
 import { glassTransitionK } from './glass-transition';
 import { advanceCycle, airAt, airRateKPerS, createCycleState, nextEventS, prepareCycle, scheduledDurationS, shopCoolRateKPerS, shopTemperatureK, TIME_EPS_S } from './cycle';
 import { coolToShopTemperature, createMechanics, demould, mechanicsResult, mechanicsStep, primeMechanics, resinModulusPa } from './mechanics';
@@ -87,7 +87,13 @@ function nextRow(r: Recorder): number {
 export function simulate(input: StudyParamsInput, options: SimulateOptions = {}): SimulationResult {
   const checked = validateStudy(input);
   if (!checked.ok) throw new StudyInputError(checked.issues);
-  const params = checked.params;
+  const perPly = options.nodesPerPly;
+  const plies = checked.params.layup.plies.length;
+  const finest = Math.min(MAX_NODES_PER_PLY, Math.floor(MAX_LAMINATE_NODES / plies));
+  if (perPly !== undefined && !(Number.isInteger(perPly) && perPly >= 1 && perPly <= finest)) {
+    throw new StudyInputError([{ path: 'options.nodesPerPly', message: `${String(perPly)} is out of range: allowed a whole number ≥ 1 and ≤ ${finest} (${plies} plies, ≤ ${MAX_LAMINATE_NODES} laminate nodes)` }]);
+  }
+  const params = perPly === undefined ? checked.params : { ...checked.params, mesh: { nodesPerPly: perPly } };
   const limits: StepLimits = { ...DEFAULT_STEP_LIMITS, ...options.stepLimits };
   for (const [k, v] of Object.entries(limits)) {
     if (!(v > 0) || !Number.isFinite(v)) throw new StudyInputError([{ path: `options.stepLimits.${k}`, message: `${String(v)} is out of range: allowed > 0 and finite` }]);

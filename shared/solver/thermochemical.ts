@@ -125,7 +125,7 @@ export function createThermochemical(p: ThermochemicalParams, options: Thermoche
   const plies = p.layup.plies;
   if (plies.length === 0) throw new RangeError('layup.plies: 0 plies: allowed at least 1');
   const perPly = p.mesh.nodesPerPly;
-  if (!Number.isInteger(perPly) || perPly < 2) throw new RangeError(`mesh.nodesPerPly: ${String(perPly)} is out of range: allowed a whole number ≥ 2`);
+  if (!Number.isInteger(perPly) || perPly < 1) throw new RangeError(`mesh.nodesPerPly: ${String(perPly)} is out of range: allowed a whole number ≥ 1`);
   const vf = p.fibreVolumeFraction;
   const kz = transverseConductivity(p.fibre.conductivityTransverseWPerMK, p.resin.conductivityWPerMK, vf);
   const rhoC = volumetricHeatCapacity(p.fibre.densityKgM3, p.fibre.specificHeatJPerKgK, p.resin.densityKgM3, p.resin.specificHeatJPerKgK, vf);

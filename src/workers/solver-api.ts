@@ -42,7 +42,8 @@ export const solverApi = {
    * One simulation; the result's typed arrays are transferred, not copied. 'full' (the default) solves with
    * the solver's default step limits and records the through-thickness profiles: what stays on screen, is
    * checked against the limits and exported. 'preview' is the quick look while a handle is dragged: the
-   * coarser PREVIEW_OPTIONS (half the steps, a looser cure tolerance) and no profiles.
+   * coarser PREVIEW_OPTIONS (half the steps, a looser cure tolerance, nodes on the ply faces only) and no
+   * profiles.
    */
   simulate(params: StudyParams, accuracy: SolveAccuracy = 'full'): Solved {
     const t0 = performance.now();
