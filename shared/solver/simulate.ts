@@ -14,7 +14,7 @@ export { DEFAULT_STEP_LIMITS, PREVIEW_OPTIONS } from './simulation-result';
 // laminate equilibrium, step by step, with histories recorded and metrics tracked on the way. Everything is
 // allocated once per simulation (history buffers grow by doubling, a handful of times per run), never per step.
 
-export const MODEL_VERSION = 'dwellform-solver 1.3.0'; // 1.1: shape at the shop temperature; 1.2: step limits and cure tolerance sized by an accuracy budget; 1.3: α limit relaxed away from the gel front, cure tolerance 1e-7
+export const MODEL_VERSION = 'dwellform-solver 1.3.0'; // 1.1: shape at the shop temperature; 1.2: step limits and cure tolerance sized by an accuracy budget; 1.3: α limit relaxed away from the gel front, thermal limits relaxed while the cure is quiet, cure tolerance 1e-7
 
 /** Far more steps than any valid study needs; reaching it means the step control has failed. */
 const MAX_STEPS = 5_000_000;
@@ -24,6 +24,14 @@ const MAX_STEPS = 5_000_000;
  * heat, Tg and stiffness only, which the accuracy budget shows the larger limit paces well.
  */
 const RELAXED_CURE_FACTOR = 2;
+/**
+ * While the cure is quiet (the last step moved no laminate node's α by more than QUIET_CURE_CHANGE: the part
+ * is still cold, or vitrified) the air and part temperature limits are QUIET_THERMAL_FACTOR times larger: the
+ * reaction heat of such a step is under 0.02 K even without any loss, and the heat and stress steps are then
+ * linear in the air; the accuracy budget holds as before (README, "Time step").
+ */
+const QUIET_CURE_CHANGE = 1e-4;
+const QUIET_THERMAL_FACTOR = 2;
 /** "Out of reach": no node still below the gel point is within this many relaxed α steps of it. */
 const GEL_REACH_STEPS = 2;
 
@@ -189,13 +197,14 @@ export function simulate(input: StudyParamsInput, options: SimulateOptions = {})
     if (steps >= MAX_STEPS) throw new Error(`simulate: gave up after ${MAX_STEPS} steps at t = ${t} s (step control failed)`);
     // Predict the step from the limits (shared/solver/README.md, "Time step"); a step may at most double the last unclipped one.
     let dt = Math.min(limits.maxStepS, 2 * naturalDt);
+    const thermal = steps > 0 && tc.lastStep.maxDeltaAlpha <= QUIET_CURE_CHANGE ? QUIET_THERMAL_FACTOR : 1;
     const airRate = airRateKPerS(program, cycle);
-    if (airRate > 0) dt = Math.min(dt, limits.maxAirChangeK / airRate);
+    if (airRate > 0) dt = Math.min(dt, (thermal * limits.maxAirChangeK) / airRate);
     // Fastest cure rate now: evaluated at the node that cured fastest in the last step (one rate evaluation
     // instead of one per node), never below that node's mean rate over the last step.
     const rate = fastNode < 0 ? maxCureRate(tc) : Math.max(lastCureRate, cureRate(tc.kinetics, tc.alpha[fastNode], tc.TK[fastNode]));
     if (rate > 0) dt = Math.min(dt, (gelFar ? RELAXED_CURE_FACTOR * limits.maxCureChange : limits.maxCureChange) / rate);
-    if (partRate > 0) dt = Math.min(dt, limits.maxPartChangeK / partRate);
+    if (partRate > 0) dt = Math.min(dt, (thermal * limits.maxPartChangeK) / partRate);
     naturalDt = dt;
     // Land exactly on the next event; avoid leaving a sliver just before it.
     const event = nextEventS(program, cycle);
