@@ -37,15 +37,17 @@ describe('ply thermal properties', () => {
   });
 });
 
+/** An aluminium plate under a laminate: the column the coupled step solves (numbers invented for the tests). */
+const toolAndLaminate = [
+  { thicknessM: 0.01, intervals: 6, conductivityWPerMK: 167, volumetricHeatCapacity: 2.43e6 },
+  { thicknessM: 0.004, intervals: 16, conductivityWPerMK: 0.6, volumetricHeatCapacity: 1.6e6 },
+];
+
 describe('prepared step, several sources', () => {
   it('prepare once and solve per source gives what heatStep gives, to the last bit, also when the step is reused', () => {
     // consistency of the split (no outside source): the coupled step solves one step with several sources
-    const layers = [
-      { thicknessM: 0.01, intervals: 6, conductivityWPerMK: 167, volumetricHeatCapacity: 2.43e6 },
-      { thicknessM: 0.004, intervals: 16, conductivityWPerMK: 0.6, volumetricHeatCapacity: 1.6e6 },
-    ];
-    const a = createHeatColumn(layers, 60, 50);
-    const b = createHeatColumn(layers, 60, 50);
+    const a = createHeatColumn(toolAndLaminate, 60, 50);
+    const b = createHeatColumn(toolAndLaminate, 60, 50);
     const n = a.nodes;
     const TOld = Float64Array.from({ length: n }, (_, i) => 350 + 0.3 * i);
     const source = new Float64Array(n);
@@ -70,11 +72,7 @@ describe('source linear in the new temperature', () => {
   it('solves the step whose source, evaluated at the temperatures it returns, is the given affine source', () => {
     // consistency (no outside source): with s_i(T) = a_i + b_i·T_i the result must be the plain solve with the
     // source a_i + b_i·TNew_i fixed, and the boundary heat must be that solve's
-    const layers = [
-      { thicknessM: 0.01, intervals: 6, conductivityWPerMK: 167, volumetricHeatCapacity: 2.43e6 },
-      { thicknessM: 0.004, intervals: 16, conductivityWPerMK: 0.6, volumetricHeatCapacity: 1.6e6 },
-    ];
-    const col = createHeatColumn(layers, 60, 50);
+    const col = createHeatColumn(toolAndLaminate, 60, 50);
     const n = col.nodes;
     const TOld = Float64Array.from({ length: n }, (_, i) => 400 + 0.2 * i);
     const a = Float64Array.from({ length: n }, (_, i) => (i >= 6 ? 900 + 40 * i : 0));
