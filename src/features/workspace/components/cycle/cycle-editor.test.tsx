@@ -55,6 +55,22 @@ describe('cycle editor', () => {
     expect(segments()).toEqual(before);
   });
 
+  it('follows raw pointer updates, and the aligned pointermove after one at the same place edits nothing more', () => {
+    renderEditor();
+    const before = segments();
+    const handle = screen.getByRole('slider', { name: 'Dwell 1 end' });
+    fireEvent.pointerDown(handle, { clientX: 200, clientY: 100, button: 0, pointerId: 1 });
+    // The raw update alone moves the dwell (a browser sends it before the frame-aligned pointermove)…
+    window.dispatchEvent(new MouseEvent('pointerrawupdate', { clientX: 230, clientY: 101 }));
+    expect(segments()[1]).toMatchObject({ holdMin: (before[1] as { holdMin: number }).holdMin + 30 });
+    const seq = studyEditorStore.getState().inputSeq;
+    // …and the pointermove at the same position that follows is not a second edit (no second solve).
+    fireEvent.pointerMove(window, { clientX: 230, clientY: 101, pointerId: 1 });
+    expect(studyEditorStore.getState().inputSeq).toBe(seq);
+    fireEvent.pointerUp(window, { clientX: 230, clientY: 101, pointerId: 1 });
+    expect(segments()[1]).toMatchObject({ holdMin: (before[1] as { holdMin: number }).holdMin + 30 });
+  });
+
   it('dragging a dwell up 15 px raises the target of the ramp that leads into it by 15 °C', () => {
     renderEditor();
     drag(screen.getByRole('slider', { name: 'Dwell 2 temperature' }), 2, -15);

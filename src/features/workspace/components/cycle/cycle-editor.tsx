@@ -18,6 +18,14 @@ import type { SimulationResult } from '../../model/simulation-result';
 const PLOT_TOP = 14;
 /** Pointer travel before a ramp-end drag decides whether it moves in time (rate) or temperature (target). */
 const AXIS_LOCK_PX = 4;
+/**
+ * A drag follows raw pointer updates too, where the browser sends them: pointermove is held back to the next
+ * frame, up to a frame of waiting before the solve can even start, while pointerrawupdate comes as the
+ * pointer moves. The pointermove that follows with the same position then changes nothing (the edit has no
+ * patches), so the two together cost one edit per position; the scheduler still starts at most one solve per
+ * frame, latest wins.
+ */
+const MOVE_EVENTS = ['pointerrawupdate', 'pointermove'] as const;
 
 type DragState = {
   handle: CycleHandle;
@@ -164,7 +172,8 @@ export function CycleEditor({
     setDragging(handleId(handle));
     resultsStore.getState().setDragging(true);
 
-    const onMove = (ev: PointerEvent) => {
+    const onMove = (event: Event) => {
+      const ev = event as PointerEvent;
       const d = drag.current;
       if (!d) return;
       const dx = ev.clientX - d.startX;
@@ -182,13 +191,13 @@ export function CycleEditor({
       document.removeEventListener('selectstart', noSelect);
       setDragging(null);
       resultsStore.getState().setDragging(false);
-      window.removeEventListener('pointermove', onMove);
+      for (const type of MOVE_EVENTS) window.removeEventListener(type, onMove);
       window.removeEventListener('pointerup', onUp);
       window.removeEventListener('pointercancel', onUp);
       window.removeEventListener('blur', onUp);
     };
     document.addEventListener('selectstart', noSelect);
-    window.addEventListener('pointermove', onMove);
+    for (const type of MOVE_EVENTS) window.addEventListener(type, onMove);
     window.addEventListener('pointerup', onUp);
     window.addEventListener('pointercancel', onUp);
     window.addEventListener('blur', onUp);
