@@ -74,16 +74,18 @@ test('while a handle is dragged the figures are a marked quick look; once it is 
   const handle = page.getByRole('slider', { name: 'Dwell 2 end' });
   await dragLeft(page, handle, 10);
 
-  // Held: a quick look, said so; the verdicts stay on the last full solve and the CSV waits.
+  // Held: a quick look, said so; the verdicts and ply stresses stay on the last full solve and the CSV waits.
   await expect(accuracy).toHaveAttribute('data-accuracy', 'preview');
   await expect(accuracy).toHaveText(/quick look/i);
   await expect(verdicts).toContainText('cycle before this drag');
+  await expect(page.getByTestId('ply-stresses')).toContainText('Cycle before this drag');
   await expect(csv).toBeDisabled();
   const previewSteps = Number(await keyFigures.getAttribute('data-steps'));
 
   await page.mouse.up();
   await expect(accuracy).toHaveAttribute('data-accuracy', 'full');
   await expect(verdicts).not.toContainText('cycle before this drag');
+  await expect(page.getByTestId('ply-stresses')).not.toContainText('Cycle before this drag');
   await expect(csv).toBeEnabled();
   // The same study, now solved with the default (finer) time steps.
   const fullSteps = Number(await keyFigures.getAttribute('data-steps'));
