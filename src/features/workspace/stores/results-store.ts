@@ -91,7 +91,10 @@ export function createResultsStore() {
 export const resultsStore = createResultsStore();
 
 /** Minutes the last result runs to (0 before the first): where the scrubber and the time axis end. */
-export const selectResultEndMin = (s: ResultsState) => (s.result ? s.result.history.timeS[s.result.history.timeS.length - 1] / 60 : 0);
+const endMin = (result: SimulationResult | null) => (result ? result.history.timeS[result.history.timeS.length - 1] / 60 : 0);
+export const selectResultEndMin = (s: ResultsState) => endMin(s.result);
+/** The end of the last full solve: the range of what only a full solve records (profiles). */
+export const selectFullResultEndMin = (s: ResultsState) => endMin(s.fullResult);
 
 /** The shown figures are a quick look (a preview solve while dragging); the full solve replaces them on release. */
 export const selectQuickLook = (s: ResultsState) => s.accuracy === 'preview';

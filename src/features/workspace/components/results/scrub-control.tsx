@@ -1,10 +1,13 @@
-import { selectResultEndMin, useResults } from '../../stores/results-store';
+import { selectFullResultEndMin, useResults } from '../../stores/results-store';
 
-/** The scrubber as a keyboard control: the time the through-thickness views show. */
+/**
+ * The scrubber as a keyboard control: the time the through-thickness views show. Its range is the last full
+ * solve's, as those views are (a quick look records no profiles).
+ */
 export function ScrubControl() {
   const scrubMin = useResults((s) => s.scrubMin);
   const scrubTo = useResults((s) => s.scrubTo);
-  const endMin = useResults(selectResultEndMin);
+  const endMin = useResults(selectFullResultEndMin);
   return (
     <label className="flex items-center gap-2 text-xs text-ink-soft">
       Time shown
