@@ -243,7 +243,7 @@ const I9 = 1 / 362880, I10 = 1 / 3628800, I11 = 1 / 39916800, I12 = 1 / 47900160
 /**
  * e^(C(α − centre)) for the diffusion factor at a stage of an integration step that started from α = from,
  * where expFrom = e^(C(from − centre)): expFrom·e^(C(α − from)), the second factor by its Taylor series to
- * the 12th power while |C(α − from)| ≤ ½ (relative error under 3e-14; a stage sits within the step's Δα of
+ * the 12th power while |C(α − from)| ≤ ½ (relative error under 3.2e-14; a stage sits within the step's Δα of
  * its start), e^(C(α − centre)) itself otherwise. One exponential per step instead of one per stage.
  */
 function diffusionExp(c: number, alpha: number, centre: number, from: number, expFrom: number): number {
