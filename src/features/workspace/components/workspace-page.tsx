@@ -47,7 +47,7 @@ function loadIntoEditor(study: WorkspaceStudy) {
 /** One time axis for the editor and every lane: the longer of the drawn cycle and the solved one, held while dragging. */
 function useWorkspaceTimeAxis(width: number) {
   const nominalEnd = useStudyEditor((s) =>
-    s.params?.cycle.kind === 'segments' ? cycleEndMin(cycleSpans(s.params.cycle.startC, s.params.cycle.segments)) : 0,
+    s.shown?.cycle.kind === 'segments' ? cycleEndMin(cycleSpans(s.shown.cycle.startC, s.shown.cycle.segments)) : 0,
   );
   const resultEnd = useResults(selectResultEndMin);
   const dragging = useResults((s) => s.dragging);

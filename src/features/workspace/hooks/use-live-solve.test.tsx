@@ -6,14 +6,17 @@ import type { StudyParams } from '../../../../shared/schemas/study';
 import { solverApi, type SolveAccuracy } from '../../../workers/solver-api';
 import { resultsStore } from '../stores/results-store';
 import { studyEditorStore } from '../stores/study-editor-store';
-import { useLiveSolve } from './use-live-solve';
+import { SHOW_WITHIN_MS, useLiveSolve } from './use-live-solve';
 
 // The real worker API, called in this thread instead of through the worker: every solve it was asked for is logged.
 const asked: { params: StudyParams; accuracy: SolveAccuracy }[] = [];
+/** extra wait before a solve answers, ms (a slow study) */
+let solveDelayMs = 0;
 vi.mock('../../../lib/solver-client', () => ({
   solver: () => ({
     simulate: async (params: StudyParams, accuracy: SolveAccuracy) => {
       asked.push({ params, accuracy });
+      if (solveDelayMs > 0) await new Promise((r) => setTimeout(r, solveDelayMs));
       return solverApi.simulate(params, accuracy);
     },
   }),
@@ -33,6 +36,7 @@ const lengthenDwell2 = (minutes: number) =>
 describe('live solve during a drag', () => {
   beforeEach(() => {
     asked.length = 0;
+    solveDelayMs = 0;
     resultsStore.getState().reset();
     studyEditorStore.getState().load({ studyId: 'test', name: 'test', baseRevision: 1 }, referenceStudy());
   });
@@ -76,5 +80,48 @@ describe('live solve during a drag', () => {
     resultsStore.getState().setDragging(false);
     await new Promise((r) => setTimeout(r, 50));
     expect(asked.map((a) => a.accuracy)).toEqual(['full', 'full']);
+  });
+
+  it('while dragging, an edit is drawn in the same store update as its quick look, not before', async () => {
+    render(<LiveSolve />);
+    await waitFor(() => expect(resultsStore.getState().fullResult).not.toBeNull());
+    // What the cycle views draw at the moment each new result reaches the charts.
+    const drawnWithResult: boolean[] = [];
+    const unsubscribe = resultsStore.subscribe((state, prev) => {
+      if (state.result !== prev.result) drawnWithResult.push(studyEditorStore.getState().shown === studyEditorStore.getState().params);
+    });
+    resultsStore.getState().setDragging(true);
+    const before = studyEditorStore.getState().shown;
+    lengthenDwell2(30);
+    // Edited, not yet drawn: the quick look is still being solved.
+    expect(studyEditorStore.getState().params).not.toBe(before);
+    expect(studyEditorStore.getState().shown).toBe(before);
+    await waitFor(() => expect(resultsStore.getState().accuracy).toBe('preview'));
+    expect(drawnWithResult).toEqual([true]);
+    unsubscribe();
+  });
+
+  it('a quick look slower than a frame does not hold the handle back: the edit is drawn on its own', async () => {
+    render(<LiveSolve />);
+    await waitFor(() => expect(resultsStore.getState().fullResult).not.toBeNull());
+    solveDelayMs = 400;
+    resultsStore.getState().setDragging(true);
+    const before = studyEditorStore.getState().shown;
+    const full = resultsStore.getState().result;
+    lengthenDwell2(30);
+    expect(studyEditorStore.getState().shown).toBe(before);
+    await new Promise((r) => setTimeout(r, SHOW_WITHIN_MS + 50));
+    expect(studyEditorStore.getState().shown).toBe(studyEditorStore.getState().params);
+    // …while the charts still show the answer from before the edit.
+    expect(resultsStore.getState().result).toBe(full);
+  });
+
+  it('an edit the solver is never asked about (invalid) is drawn at once, even mid-drag', async () => {
+    render(<LiveSolve />);
+    await waitFor(() => expect(resultsStore.getState().fullResult).not.toBeNull());
+    resultsStore.getState().setDragging(true);
+    studyEditorStore.getState().edit('bad', (d) => void (d.fibreVolumeFraction = 2));
+    expect(studyEditorStore.getState().shown).toBe(studyEditorStore.getState().params);
+    expect(asked).toHaveLength(1);
   });
 });

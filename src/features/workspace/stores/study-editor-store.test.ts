@@ -152,5 +152,36 @@ describe('study editor store', () => {
     expect(store.getState().params!.limits.maxWarpageMm).toBe(0.4);
     expect(store.getState().past).toHaveLength(1);
   });
-});
 
+  it('the drawn study follows every edit, undo and redo, except while held, and catches up when shown or released', () => {
+    const store = loaded();
+    const { edit } = store.getState();
+    const widen = (deg: number) => edit('corner', (d) => void (d.geometry.cornerAngleDeg = deg));
+    widen(80);
+    expect(store.getState().shown).toBe(store.getState().params);
+
+    store.getState().setHoldShown(true);
+    const drawn = store.getState().shown;
+    widen(70);
+    store.getState().undo();
+    store.getState().redo();
+    expect(store.getState().params!.geometry.cornerAngleDeg).toBe(70);
+    expect(store.getState().shown).toBe(drawn);
+    expect(store.getState().shown!.geometry.cornerAngleDeg).toBe(80);
+
+    store.getState().showLatest();
+    expect(store.getState().shown).toBe(store.getState().params);
+    widen(60);
+    expect(store.getState().shown!.geometry.cornerAngleDeg).toBe(70);
+    store.getState().setHoldShown(false);
+    expect(store.getState().shown).toBe(store.getState().params);
+    widen(50);
+    expect(store.getState().shown!.geometry.cornerAngleDeg).toBe(50);
+
+    // Loading another study draws it at once and lets go of any hold.
+    store.getState().setHoldShown(true);
+    store.getState().load(meta, referenceStudy());
+    expect(store.getState().holdShown).toBe(false);
+    expect(store.getState().shown).toBe(store.getState().params);
+  });
+});

@@ -54,6 +54,14 @@ export type StudyEditorState = {
   savedId: number;
   /** sequence number of the last input, for the input-to-paint measure */
   inputSeq: number;
+  /**
+   * The study as the cycle views draw it (the line editor, the segment table, the time axis): `params`, except
+   * while `holdShown` is set. A drag sets it: each step's edit then waits for `showLatest()`, which the live
+   * solve calls when the quick look of that edit lands (or a frame has passed without one), so the drawn set
+   * point and the curves solved for it change in the same frame. Edits, undo and history read `params`.
+   */
+  shown: StudyParams | null;
+  holdShown: boolean;
 };
 
 export type StudyEditorActions = {
@@ -63,11 +71,18 @@ export type StudyEditorActions = {
   undo: () => void;
   redo: () => void;
   markSaved: (revision: number) => void;
+  /** Hold `shown` back from later edits (true), or let it follow them again, catching up at once (false). */
+  setHoldShown: (hold: boolean) => void;
+  /** Draw the latest edit now. */
+  showLatest: () => void;
 };
 
 export type StudyEditorStore = ReturnType<typeof createStudyEditorStore>;
 
 const COALESCE_MS = 1000;
+
+/** New params, and the drawn study with them unless it is held. */
+const withParams = (s: StudyEditorState, params: StudyParams) => (s.holdShown ? { params } : { params, shown: params });
 
 export function createStudyEditorStore(now: () => number = () => Date.now()) {
   let nextId = 1;
@@ -79,14 +94,17 @@ export function createStudyEditorStore(now: () => number = () => Date.now()) {
     headId: 0,
     savedId: 0,
     inputSeq: 0,
+    shown: null,
+    holdShown: false,
 
     load(meta, params) {
-      set({ meta, params, past: [], future: [], headId: 0, savedId: 0 });
+      set({ meta, params, shown: params, holdShown: false, past: [], future: [], headId: 0, savedId: 0 });
     },
 
     edit(label, recipe, options = {}) {
       const inputAt = options.inputAt ?? (typeof performance === 'undefined' ? undefined : performance.now());
-      const { meta, params, past, savedId } = get();
+      const state = get();
+      const { meta, params, past, savedId } = state;
       if (!params || meta?.readOnly) return null;
       const [next, patches, inverse] = produceWithPatches(params, recipe);
       if (patches.length === 0) return null;
@@ -110,21 +128,22 @@ export function createStudyEditorStore(now: () => number = () => Date.now()) {
           patches: [...top.patches, ...patches],
           inverse: [...inverse, ...top.inverse],
         };
-        set({ params: next, past: [...past.slice(0, -1), merged], future: [], headId: merged.id, inputSeq });
+        set({ ...withParams(state, next), past: [...past.slice(0, -1), merged], future: [], headId: merged.id, inputSeq });
       } else {
         const entry: HistoryEntry = { id: nextId++, label, coalesceKey: key, at: t, patches, inverse };
-        set({ params: next, past: [...past, entry], future: [], headId: entry.id, inputSeq });
+        set({ ...withParams(state, next), past: [...past, entry], future: [], headId: entry.id, inputSeq });
       }
       return null;
     },
 
     undo() {
-      const { params, past, future } = get();
+      const state = get();
+      const { params, past, future } = state;
       const top = past[past.length - 1];
       if (!params || !top) return;
       const rest = past.slice(0, -1);
       set({
-        params: applyPatches(params, top.inverse),
+        ...withParams(state, applyPatches(params, top.inverse)),
         past: rest,
         future: [top, ...future],
         headId: rest.length ? rest[rest.length - 1].id : 0,
@@ -133,11 +152,12 @@ export function createStudyEditorStore(now: () => number = () => Date.now()) {
     },
 
     redo() {
-      const { params, past, future } = get();
+      const state = get();
+      const { params, past, future } = state;
       const first = future[0];
       if (!params || !first) return;
       set({
-        params: applyPatches(params, first.patches),
+        ...withParams(state, applyPatches(params, first.patches)),
         past: [...past, { ...first, coalesceKey: null }],
         future: future.slice(1),
         headId: first.id,
@@ -148,6 +168,15 @@ export function createStudyEditorStore(now: () => number = () => Date.now()) {
     markSaved(revision) {
       const { meta, headId } = get();
       set({ savedId: headId, meta: meta ? { ...meta, baseRevision: revision } : meta });
+    },
+
+    setHoldShown(hold) {
+      set(hold ? { holdShown: true } : { holdShown: false, shown: get().params });
+    },
+
+    showLatest() {
+      const { params, shown } = get();
+      if (shown !== params) set({ shown: params });
     },
   }));
 }

@@ -78,7 +78,8 @@ export function CycleEditor({
   temperatureDomainC?: [number, number];
 }) {
   const axis = useTimeAxis();
-  const params = useStudyEditor((s) => s.params);
+  // What is drawn: the edited study, or during a drag the step whose quick look is on screen (editor store).
+  const params = useStudyEditor((s) => s.shown);
   const result = useResults((s) => s.result);
   const [refusal, setRefusal] = useState<string | null>(null);
   const [dragging, setDragging] = useState<string | null>(null);

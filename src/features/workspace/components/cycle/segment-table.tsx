@@ -30,7 +30,7 @@ const addChoices = [
  * handle redraws one row.
  */
 export function SegmentTable() {
-  const cycle = useStudyEditor((s) => s.params?.cycle);
+  const cycle = useStudyEditor((s) => s.shown?.cycle);
   const startIssue = useIssue('cycle.startC');
   if (!cycle || cycle.kind !== 'segments') return null;
   const names = segmentNames(cycle.segments);
