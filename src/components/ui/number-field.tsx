@@ -1,4 +1,4 @@
-import { useEffect, useId, useRef, useState, type KeyboardEvent } from 'react';
+import { useId, useState, type KeyboardEvent } from 'react';
 
 export type NumberFieldProps = {
   label: string;
@@ -37,16 +37,17 @@ export function NumberField({ label, unit, value, onCommit, issue, step = 1, dig
   const id = useId();
   const [text, setText] = useState(() => format(value, digits));
   const [localIssue, setLocalIssue] = useState<string | null>(null);
-  const focused = useRef(false);
+  const [followed, setFollowed] = useState({ value, digits });
 
-  // Follow outside changes (undo, drag) unless the text already means this value.
-  useEffect(() => {
+  // Follow outside changes (undo, drag) unless the text already means this value. Adjusted while rendering, not
+  // in an effect: an effect would render and paint the field a second time for every step of a drag.
+  if (followed.value !== value || followed.digits !== digits) {
+    setFollowed({ value, digits });
     if (parse(text) !== value) {
       setText(format(value, digits));
       setLocalIssue(null);
     }
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [value, digits]);
+  }
 
   function change(next: string) {
     setText(next);
@@ -94,9 +95,7 @@ export function NumberField({ label, unit, value, onCommit, issue, step = 1, dig
           data-testid={testId}
           onChange={(e) => change(e.target.value)}
           onKeyDown={onKeyDown}
-          onFocus={() => (focused.current = true)}
           onBlur={() => {
-            focused.current = false;
             if (localIssue === null) setText(format(value, digits));
           }}
         />

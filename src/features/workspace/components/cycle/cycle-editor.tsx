@@ -81,7 +81,15 @@ export function CycleEditor({
   // What is drawn: the edited study, or during a drag the step whose quick look is on screen (editor store).
   const params = useStudyEditor((s) => s.shown);
   const result = useResults((s) => s.result);
-  const [refusal, setRefusal] = useState<string | null>(null);
+  const [refusal, setShownRefusal] = useState<string | null>(null);
+  // Every drag step reports its refusal or none; only a change re-renders the editor (a repeated "none" would
+  // still cost the editor a render for each step).
+  const refusalRef = useRef<string | null>(null);
+  const setRefusal = (next: string | null) => {
+    if (refusalRef.current === next) return;
+    refusalRef.current = next;
+    setShownRefusal(next);
+  };
   const [dragging, setDragging] = useState<string | null>(null);
   const drag = useRef<DragState | null>(null);
   /** an arrow key is held on a handle (the key repeats): a drag by keyboard until the key comes up */
