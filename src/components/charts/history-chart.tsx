@@ -5,7 +5,8 @@ import { ChartFigure, runsDescription, type LegendEntry } from './chart-figure';
 import { markerIndices, markerPath, RUN_STYLES } from './run-styles';
 import { labelRows, textWidthPx } from './label-rows';
 import { ScrubLine } from './scrub-line';
-import { bandPath, seriesPath } from './series-path';
+import { PiecedPath } from './pieced-path';
+import { bandPath, bandPieces, seriesPath, seriesPieces } from './series-path';
 import { TimeAxisProvider, TimeTicks, ValueTicks, type TimeAxis } from './time-axis';
 
 export type History = SimulationResult['history'];
@@ -69,7 +70,11 @@ function dataExtent(runs: ResultRun[], series: HistorySeries[]): [number, number
   return Number.isFinite(lo) ? [lo, hi] : [0, 1];
 }
 
-/** The series paths of every run; memoised apart from the scrub line so moving the scrubber redraws no path. */
+/**
+ * The series paths of every run; memoised apart from the scrub line so moving the scrubber redraws no path.
+ * Solid lines and bands are drawn in pieces (PiecedPath): while a handle is dragged, only the part of each
+ * curve from the edited moment on is rewritten and repainted. A dashed line stays one path, its dashes even.
+ */
 const SeriesLayer = memo(function SeriesLayer({
   runs,
   series,
@@ -97,18 +102,23 @@ const SeriesLayer = memo(function SeriesLayer({
               const values = s.pick(h);
               const toY = (v: number) => y(s.toDisplay(v));
               if (s.pickUpper) {
-                return <path key={s.label} d={bandPath(h.timeS, values, s.pickUpper(h), toX, toY, axis.plotWidth)} fill={s.colour} opacity={0.22} />;
+                // fill-opacity, not opacity: each piece blends on its own, so neighbours meet without a seam.
+                const upper = s.pickUpper(h);
+                return overlaid ? (
+                  <path key={s.label} data-series={s.label} d={bandPath(h.timeS, values, upper, toX, toY, axis.plotWidth)} fill={s.colour} fillOpacity={0.22} />
+                ) : (
+                  <PiecedPath key={s.label} data-series={s.label} pieces={bandPieces(h.timeS, values, upper, toX, toY)} fill={s.colour} fillOpacity={0.22} />
+                );
               }
               const marks = overlaid ? markerIndices(h.timeS, secondsPerMarker, style.markerPhase) : [];
+              const paint = { fill: 'none', stroke: s.colour, strokeWidth: s.strokeWidth ?? 1.6 };
               return (
-                <g key={s.label}>
-                  <path
-                    d={seriesPath(h.timeS, values, toX, toY, axis.plotWidth)}
-                    fill="none"
-                    stroke={s.colour}
-                    strokeWidth={s.strokeWidth ?? 1.6}
-                    strokeDasharray={style.dash}
-                  />
+                <g key={s.label} data-series={s.label}>
+                  {style.dash === undefined ? (
+                    <PiecedPath pieces={seriesPieces(h.timeS, values, toX, toY)} {...paint} />
+                  ) : (
+                    <path d={seriesPath(h.timeS, values, toX, toY, axis.plotWidth)} {...paint} strokeDasharray={style.dash} />
+                  )}
                   {marks.map((i) => (
                     <path
                       key={i}

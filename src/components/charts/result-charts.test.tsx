@@ -44,8 +44,29 @@ describe('result charts', () => {
     expect(chart.querySelectorAll('[data-run]')).toHaveLength(1);
     expect(screen.queryAllByTestId('run-legend')).toHaveLength(0);
     // band, least cured and most cured point
-    expect(chart.querySelectorAll('[data-run="A"] > path, [data-run="A"] > g > path')).toHaveLength(3);
+    expect([...chart.querySelectorAll('[data-run="A"] [data-series]')].map((g) => g.getAttribute('data-series'))).toEqual([
+      'through-thickness spread',
+      'least cured point',
+      'most cured point',
+    ]);
     expect(screen.getByText('through-thickness spread')).toBeTruthy();
+  });
+
+  it('redraw only the pieces of a curve after the moment a new result differs from the last', () => {
+    const first = run('only', 120, [1, 2]);
+    // The same run, cured faster from 400 min on (sample 200 of 301, at 120 s a sample): what a later dwell end does.
+    const second = run('only', 120, [1, 2]);
+    const h = second.result.history as { alphaMin: Float64Array; alphaMax: Float64Array };
+    for (let i = 200; i < h.alphaMin.length; i++) [h.alphaMin[i], h.alphaMax[i]] = [h.alphaMin[i] * 1.05, h.alphaMax[i] * 1.05];
+    const { rerender } = render(<CureChart runs={[first]} axis={axis} />);
+    const pieces = () => [...screen.getByTestId('chart-cure').querySelectorAll('[data-series="least cured point"] path')];
+    const before = pieces().map((p) => p.getAttribute('d'));
+    rerender(<CureChart runs={[second]} axis={axis} />);
+    const after = pieces().map((p) => p.getAttribute('d'));
+    // 600 px for 600 min, 128 px pieces: minutes 0–384 lie in the first three pieces, untouched; the rest moved.
+    expect(before.length).toBeGreaterThan(4);
+    expect(after.slice(0, 3)).toEqual(before.slice(0, 3));
+    expect(after.slice(3).every((d, i) => d !== before[3 + i])).toBe(true);
   });
 
   it('tell overlaid runs apart by dash and marker, each named in the key', () => {
@@ -53,7 +74,7 @@ describe('result charts', () => {
     const chart = screen.getByTestId('chart-temperatures');
     const legend = screen.getAllByTestId('run-legend');
     expect(legend.map((l) => l.textContent)).toEqual(['A reference', 'B candidate']);
-    const lineOf = (letter: string) => chart.querySelector(`[data-run="${letter}"] > g > path`)!;
+    const lineOf = (letter: string) => chart.querySelector(`[data-run="${letter}"] > [data-series] > :is(path, g)`)!;
     expect(lineOf('A').getAttribute('stroke-dasharray')).toBeNull();
     expect(lineOf('B').getAttribute('stroke-dasharray')).toBe('7 4');
     // markers about every 70 px on a 600 px plot, on each of the two quantities
@@ -103,7 +124,7 @@ describe('temperature chart', () => {
     render(<TemperatureChart runs={[run('only', 100, [1, 2])]} axis={axis} />);
     const chart = screen.getByTestId('chart-temperatures');
     for (const name of ['air', 'tool', 'part surface', 'mid-plane']) expect(within(chart).getByText(name)).toBeTruthy();
-    expect(chart.querySelectorAll('[data-run="A"] > g > path')).toHaveLength(4);
+    expect(chart.querySelectorAll('[data-run="A"] > [data-series]')).toHaveLength(4);
   });
 });
 

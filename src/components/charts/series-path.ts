@@ -4,17 +4,18 @@ type Numeric = ArrayLike<number>;
  * Indices to draw for a series of `n` points on about `columns` pixels: every
  * point when it fits, else the first, the lowest and highest of each bucket
  * (in time order) and the last, so peaks such as an exotherm survive.
+ * With `start` and `end`, the same for the points start…end (inclusive) only.
  */
-export function drawIndices(ys: Numeric, columns: number): number[] {
-  const n = ys.length;
+export function drawIndices(ys: Numeric, columns: number, start = 0, end = ys.length - 1): number[] {
+  const n = end - start + 1;
   const budget = Math.max(2, Math.floor(columns) * 2);
-  if (n <= budget) return Array.from({ length: n }, (_, i) => i);
+  if (n <= budget) return Array.from({ length: Math.max(0, n) }, (_, i) => start + i);
   const buckets = Math.floor(budget / 2);
   const size = n / buckets;
-  const out: number[] = [0];
+  const out: number[] = [start];
   for (let b = 0; b < buckets; b++) {
-    const from = Math.floor(b * size);
-    const to = Math.min(n, Math.floor((b + 1) * size));
+    const from = start + Math.floor(b * size);
+    const to = start + Math.min(n, Math.floor((b + 1) * size));
     let lo = from;
     let hi = from;
     for (let i = from + 1; i < to; i++) {
@@ -24,7 +25,7 @@ export function drawIndices(ys: Numeric, columns: number): number[] {
     if (lo <= hi) out.push(lo, hi);
     else out.push(hi, lo);
   }
-  out.push(n - 1);
+  out.push(end);
   return out.filter((v, i, a) => i === 0 || v > a[i - 1]);
 }
 
@@ -81,14 +82,86 @@ export function bandPath(
   toY: (v: number) => number,
   columns: number,
 ): string {
-  const n = xs.length;
-  if (n === 0) return '';
+  return bandBetween(xs, lower, upper, toX, toY, columns, 0, xs.length - 1);
+}
+
+/** The band over the points start…end (inclusive), every stride-th point on about `columns` pixels. */
+function bandBetween(
+  xs: Numeric,
+  lower: Numeric,
+  upper: Numeric,
+  toX: (v: number) => number,
+  toY: (v: number) => number,
+  columns: number,
+  start: number,
+  end: number,
+): string {
+  const n = end - start + 1;
+  if (n <= 0) return '';
   const stride = Math.max(1, Math.floor(n / Math.max(2, columns)));
   const indices: number[] = [];
-  for (let i = 0; i < n; i += stride) indices.push(i);
-  if (indices[indices.length - 1] !== n - 1) indices.push(n - 1);
+  for (let i = start; i <= end; i += stride) indices.push(i);
+  if (indices[indices.length - 1] !== end) indices.push(end);
   const back = [...indices].reverse();
   return `${polyline(indices, xs, upper, toX, toY, 'M')}${polyline(back, xs, lower, toX, toY, 'L')}Z`;
+}
+
+/**
+ * Width of one piece of a pieced path, px. A drag changes a result from the edited moment on; drawn in pieces
+ * of this width, the curves before that moment keep their text, and the browser repaints only the pieces that
+ * changed instead of every chart's whole width.
+ */
+export const PIECE_PX = 128;
+
+/** One piece of a pieced path: `key` is the piece's place along the axis (stable from one result to the next). */
+export type PathPiece = { key: number; d: string };
+
+/**
+ * The points cut into pieces by pixel column: piece k holds the points whose x falls in
+ * [k·piecePx, (k+1)·piecePx) and, to join it to the piece before, that piece's last point. The text of a piece
+ * depends on its own points only.
+ */
+function pieceRanges(xs: Numeric, toX: (v: number) => number, piecePx: number): { key: number; start: number; end: number }[] {
+  const ranges: { key: number; start: number; end: number }[] = [];
+  for (let i = 0; i < xs.length; i++) {
+    const key = Math.floor(toX(xs[i]) / piecePx);
+    const last = ranges[ranges.length - 1];
+    if (last && last.key === key) last.end = i;
+    else ranges.push({ key, start: Math.max(0, i - 1), end: i });
+  }
+  return ranges.filter((r) => r.end > r.start);
+}
+
+/**
+ * `seriesPath` in pieces of `piecePx` (see PIECE_PX); each piece thinned on its own columns. Drawn with round
+ * caps, the pieces meet as one line. For solid lines: a dash pattern would start again in every piece.
+ */
+export function seriesPieces(
+  xs: Numeric,
+  ys: Numeric,
+  toX: (v: number) => number,
+  toY: (v: number) => number,
+  piecePx = PIECE_PX,
+): PathPiece[] {
+  return pieceRanges(xs, toX, piecePx).map(({ key, start, end }) => ({
+    key,
+    d: polyline(drawIndices(ys, piecePx, start, end), xs, ys, toX, toY, 'M'),
+  }));
+}
+
+/** `bandPath` in pieces of `piecePx`, each closed on its own; neighbours share their edge. */
+export function bandPieces(
+  xs: Numeric,
+  lower: Numeric,
+  upper: Numeric,
+  toX: (v: number) => number,
+  toY: (v: number) => number,
+  piecePx = PIECE_PX,
+): PathPiece[] {
+  return pieceRanges(xs, toX, piecePx).map(({ key, start, end }) => ({
+    key,
+    d: bandBetween(xs, lower, upper, toX, toY, piecePx, start, end),
+  }));
 }
 
 /** Index of the last sample at or before `t` in an increasing array (0 before the start). */

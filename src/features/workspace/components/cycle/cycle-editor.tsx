@@ -3,7 +3,8 @@ import { kToC } from '../../../../../shared/units';
 import { scaleLinear, type ScaleLinear } from 'd3-scale';
 import { MAX_CYCLE_MIN, type StudyParams } from '../../../../../shared/schemas/study';
 import { TimeTicks, ValueTicks, useTimeAxis } from '../../../../components/charts/time-axis';
-import { seriesPath } from '../../../../components/charts/series-path';
+import { seriesPieces } from '../../../../components/charts/series-path';
+import { PiecedPath } from '../../../../components/charts/pieced-path';
 import { ScrubLine } from '../../../../components/charts/scrub-line';
 import { TEMPERATURE_SERIES } from '../../../../components/charts/result-charts';
 import { ChartExportControl } from '../../../../components/export/chart-export-control';
@@ -241,8 +242,9 @@ export function CycleEditor({
     resultsStore.getState().scrubTo(axis.x.invert(e.clientX - rect.left));
   }
 
+  // One path per segment: a drag rewrites the segments from the dragged one on, and those before keep their text.
   const vertices = cycleVertices(cycle.startC, spans);
-  const setpointD = vertices.map((v, i) => `${i ? 'L' : 'M'}${axis.x(v.timeMin)},${y(v.tempC)}`).join('');
+  const setpointDs = vertices.slice(1).map((v, i) => `M${axis.x(vertices[i].timeMin)},${y(vertices[i].tempC)}L${axis.x(v.timeMin)},${y(v.tempC)}`);
 
   return (
     <div className="paint-island relative">
@@ -266,8 +268,12 @@ export function CycleEditor({
             data-testid="cycle-plot"
           />
           <SegmentBands spans={spans} x={axis.x} height={plotHeight} />
-          {result && <ThermalTraces result={result} x={axis.x} y={y} columns={axis.plotWidth} />}
-          <path d={setpointD} fill="none" stroke="var(--color-ink)" strokeWidth={1.6} strokeDasharray="6 3" />
+          {result && <ThermalTraces result={result} x={axis.x} y={y} />}
+          <g fill="none" stroke="var(--color-ink)" strokeWidth={1.6} strokeDasharray="6 3" data-testid="set-point">
+            {setpointDs.map((d, i) => (
+              <path key={i} d={d} />
+            ))}
+          </g>
           <StoreScrubLine x={axis.x} height={plotHeight} />
           {spans.map((span) => (
             <SpanHandles
@@ -319,26 +325,19 @@ const ThermalTraces = memo(function ThermalTraces({
   result,
   x,
   y,
-  columns,
 }: {
   result: SimulationResult;
   x: ScaleLinear<number, number>;
   y: ScaleLinear<number, number>;
-  columns: number;
 }) {
   const t = result.history.timeS;
   const toX = (s: number) => x(s / 60);
   const toY = (k: number) => y(kToC(k));
+  // In pieces: a drag rewrites and repaints each trace from the edited moment on only.
   return (
     <g aria-hidden pointerEvents="none" data-testid="thermal-traces">
       {TEMPERATURE_SERIES.map((tr) => (
-        <path
-          key={tr.label}
-          d={seriesPath(t, tr.pick(result.history), toX, toY, columns)}
-          fill="none"
-          stroke={tr.colour}
-          strokeWidth={tr.strokeWidth}
-        />
+        <PiecedPath key={tr.label} pieces={seriesPieces(t, tr.pick(result.history), toX, toY)} fill="none" stroke={tr.colour} strokeWidth={tr.strokeWidth} />
       ))}
       {Array.from(result.segmentBoundsS).map((s, i) => (
         <line key={i} x1={toX(s)} x2={toX(s)} y1={y.range()[0]} y2={y.range()[0] - 6} stroke="var(--color-ink-faint)" />
