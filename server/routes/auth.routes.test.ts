@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
-import { anonymous, call, resetToDemo, signIn, startHarness, type Harness } from '../test/harness';
+import { anonymous, call, resetToDemo, signIn, signInSession, startHarness, type Harness } from '../test/harness';
 
 let h: Harness;
 beforeAll(async () => {
@@ -63,6 +63,20 @@ describe('sign-in through the local OAuth provider', () => {
     await engineer.agent.post(`/api/teams/${team!.id}/parts`).set('X-CSRF-Token', 'not-the-token').send(body).expect(403);
     expect(await h.db.models.Part.count({ where: { partNumber: 'TB-9001' } })).toBe(0);
     await call(engineer, 'post', `/api/teams/${team!.id}/parts`, body).expect(201);
+  });
+
+  it('hands every first request of a new session the same CSRF token, however they overlap', async () => {
+    const { agent } = await signInSession(h, 'tomas.reed');
+    // What a page does on arrival, side by side: who am I, and a token for a write.
+    const [me, token] = await Promise.all([agent.get('/api/me').expect(200), agent.get('/api/auth/csrf').expect(200)]);
+    expect(token.body.csrfToken).toMatch(/^[0-9a-f]{64}$/);
+    expect(me.body.csrfToken).toBe(token.body.csrfToken);
+    const team = await h.db.models.Team.findOne({ where: { slug: 'tail-structures' } });
+    await agent
+      .post(`/api/teams/${team!.id}/parts`)
+      .set('X-CSRF-Token', token.body.csrfToken as string)
+      .send({ partNumber: 'TB-9002', name: 'Access panel, 12 plies' })
+      .expect(201);
   });
 
   it('returns to the page the user came from, but never to another site', async () => {

@@ -57,8 +57,14 @@ export function authRoutes(config: Config, passport: PassportStatic): Router {
     passport.authenticate('github', (err: unknown, user: User | false) => {
       if (err) return next(err);
       if (!user) return res.redirect('/sign-in?error=denied');
-      // req.login regenerates the session (fixation defence); a new CSRF token follows from /api/me.
-      req.login(user, (loginErr) => (loginErr ? next(loginErr) : res.redirect(next_)));
+      // req.login regenerates the session (fixation defence). Its CSRF token is made here, before any other
+      // request of the new session: the page's first requests run side by side, and each would otherwise mint a
+      // token of its own, the last session save winning and the other token refused.
+      req.login(user, (loginErr) => {
+        if (loginErr) return next(loginErr);
+        csrf.generateToken(req);
+        res.redirect(next_);
+      });
     })(req, res, next);
   });
 

@@ -95,15 +95,21 @@ export async function anonymous(app: DwellformApp): Promise<SignedIn> {
   return { agent, csrf: res.body.csrfToken as string, userId: null };
 }
 
+type Who = string | { login: string; name: string; email: string };
+
 /**
  * Signs in as a demo person (by login, picked from the fake's sign-in page)
  * or as someone new (login + name + email typed into its form).
  */
-export async function signIn(
-  h: Harness,
-  who: string | { login: string; name: string; email: string },
-  options: { next?: string } = {},
-): Promise<SignedIn & { landedOn: string }> {
+export async function signIn(h: Harness, who: Who, options: { next?: string } = {}): Promise<SignedIn & { landedOn: string }> {
+  const { agent, landedOn } = await signInSession(h, who, options);
+  const { csrf, userId } = await csrfFor(agent);
+  if (userId === null) throw new Error('sign-in did not create a session');
+  return { agent, csrf, userId, landedOn };
+}
+
+/** The sign-in up to the callback's redirect: the session exists, and nothing has been asked of it yet. */
+export async function signInSession(h: Harness, who: Who, options: { next?: string } = {}): Promise<{ agent: Agent; landedOn: string }> {
   const agent = request.agent(h.app);
   const start = await agent.get(`/api/auth/github${options.next ? `?next=${encodeURIComponent(options.next)}` : ''}`).expect(302);
   const authorize = new URL(start.headers.location);
@@ -124,9 +130,7 @@ export async function signIn(
   if (back.status !== 302) throw new Error(`fake provider answered ${back.status}`);
   const callback = new URL(back.headers.get('location')!);
   const landed = await agent.get(callback.pathname + callback.search).expect(302);
-  const { csrf, userId } = await csrfFor(agent);
-  if (userId === null) throw new Error('sign-in did not create a session');
-  return { agent, csrf, userId, landedOn: landed.headers.location as string };
+  return { agent, landedOn: landed.headers.location as string };
 }
 
 type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
