@@ -73,7 +73,10 @@ export function seriesPath(
   return polyline(drawIndices(ys, columns), xs, ys, toX, toY, 'M');
 }
 
-/** SVG path of the band between two series: along the upper edge, back along the lower one, closed. */
+/**
+ * SVG path of the band between two series: along the upper edge, back along the lower one, closed; every
+ * stride-th point on about `columns` pixels. With `start` and `end`, over the points start…end (inclusive) only.
+ */
 export function bandPath(
   xs: Numeric,
   lower: Numeric,
@@ -81,20 +84,8 @@ export function bandPath(
   toX: (v: number) => number,
   toY: (v: number) => number,
   columns: number,
-): string {
-  return bandBetween(xs, lower, upper, toX, toY, columns, 0, xs.length - 1);
-}
-
-/** The band over the points start…end (inclusive), every stride-th point on about `columns` pixels. */
-function bandBetween(
-  xs: Numeric,
-  lower: Numeric,
-  upper: Numeric,
-  toX: (v: number) => number,
-  toY: (v: number) => number,
-  columns: number,
-  start: number,
-  end: number,
+  start = 0,
+  end = xs.length - 1,
 ): string {
   const n = end - start + 1;
   if (n <= 0) return '';
@@ -117,11 +108,11 @@ export const PIECE_PX = 128;
 export type PathPiece = { key: number; d: string };
 
 /**
- * The points cut into pieces by pixel column: piece k holds the points whose x falls in
- * [k·piecePx, (k+1)·piecePx) and, to join it to the piece before, that piece's last point. The text of a piece
- * depends on its own points only.
+ * The points cut into pieces by pixel column, each drawn by `draw(start, end)` (indices, inclusive): piece k
+ * holds the points whose x falls in [k·piecePx, (k+1)·piecePx) and, to join it to the piece before, that
+ * piece's last point. The text of a piece depends on its own points only.
  */
-function pieceRanges(xs: Numeric, toX: (v: number) => number, piecePx: number): { key: number; start: number; end: number }[] {
+function pieces(xs: Numeric, toX: (v: number) => number, piecePx: number, draw: (start: number, end: number) => string): PathPiece[] {
   const ranges: { key: number; start: number; end: number }[] = [];
   for (let i = 0; i < xs.length; i++) {
     const key = Math.floor(toX(xs[i]) / piecePx);
@@ -129,7 +120,7 @@ function pieceRanges(xs: Numeric, toX: (v: number) => number, piecePx: number): 
     if (last && last.key === key) last.end = i;
     else ranges.push({ key, start: Math.max(0, i - 1), end: i });
   }
-  return ranges.filter((r) => r.end > r.start);
+  return ranges.filter((r) => r.end > r.start).map(({ key, start, end }) => ({ key, d: draw(start, end) }));
 }
 
 /**
@@ -143,10 +134,7 @@ export function seriesPieces(
   toY: (v: number) => number,
   piecePx = PIECE_PX,
 ): PathPiece[] {
-  return pieceRanges(xs, toX, piecePx).map(({ key, start, end }) => ({
-    key,
-    d: polyline(drawIndices(ys, piecePx, start, end), xs, ys, toX, toY, 'M'),
-  }));
+  return pieces(xs, toX, piecePx, (start, end) => polyline(drawIndices(ys, piecePx, start, end), xs, ys, toX, toY, 'M'));
 }
 
 /** `bandPath` in pieces of `piecePx`, each closed on its own; neighbours share their edge. */
@@ -158,10 +146,7 @@ export function bandPieces(
   toY: (v: number) => number,
   piecePx = PIECE_PX,
 ): PathPiece[] {
-  return pieceRanges(xs, toX, piecePx).map(({ key, start, end }) => ({
-    key,
-    d: bandBetween(xs, lower, upper, toX, toY, piecePx, start, end),
-  }));
+  return pieces(xs, toX, piecePx, (start, end) => bandPath(xs, lower, upper, toX, toY, piecePx, start, end));
 }
 
 /** Index of the last sample at or before `t` in an increasing array (0 before the start). */
