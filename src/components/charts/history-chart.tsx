@@ -6,7 +6,7 @@ import { markerIndices, markerPath, RUN_STYLES } from './run-styles';
 import { labelRows, textWidthPx } from './label-rows';
 import { ScrubLine } from './scrub-line';
 import { PiecedPath } from './pieced-path';
-import { bandPath, bandPieces, seriesPath, seriesPieces } from './series-path';
+import { bandPieces, seriesPath, seriesPieces } from './series-path';
 import { TimeAxisProvider, TimeTicks, ValueTicks, type TimeAxis } from './time-axis';
 
 export type History = SimulationResult['history'];
@@ -102,12 +102,10 @@ const SeriesLayer = memo(function SeriesLayer({
               const values = s.pick(h);
               const toY = (v: number) => y(s.toDisplay(v));
               if (s.pickUpper) {
-                // fill-opacity, not opacity: each piece blends on its own, so neighbours meet without a seam.
-                const upper = s.pickUpper(h);
-                return overlaid ? (
-                  <path key={s.label} data-series={s.label} d={bandPath(h.timeS, values, upper, toX, toY, axis.plotWidth)} fill={s.colour} fillOpacity={0.22} />
-                ) : (
-                  <PiecedPath key={s.label} data-series={s.label} pieces={bandPieces(h.timeS, values, upper, toX, toY)} fill={s.colour} fillOpacity={0.22} />
+                // A fill has no dashes to keep even: always in pieces. fill-opacity, not opacity: each piece
+                // blends on its own, so neighbours meet without a seam.
+                return (
+                  <PiecedPath key={s.label} data-series={s.label} pieces={bandPieces(h.timeS, values, s.pickUpper(h), toX, toY)} fill={s.colour} fillOpacity={0.22} />
                 );
               }
               const marks = overlaid ? markerIndices(h.timeS, secondsPerMarker, style.markerPhase) : [];
