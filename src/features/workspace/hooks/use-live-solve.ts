@@ -31,7 +31,7 @@ function messageOf(error: unknown): string {
  * one frame of rendering per step instead of two, and the set point never drawn over curves solved for
  * another. An edit whose quick look has not landed within SHOW_WITHIN_MS is drawn on its own.
  */
-export function useLiveSolve(): void {
+export function useLiveSolve({ showWithinMs = SHOW_WITHIN_MS }: { showWithinMs?: number } = {}): void {
   useEffect(() => {
     const results = resultsStore.getState();
     let showTimer: ReturnType<typeof setTimeout> | null = null;
@@ -45,7 +45,7 @@ export function useLiveSolve(): void {
     };
     // Armed by the first edit not yet drawn; later edits do not push it back, so a fast drag still moves the handle.
     const showSoon = () => {
-      showTimer ??= setTimeout(showLatest, SHOW_WITHIN_MS);
+      showTimer ??= setTimeout(showLatest, showWithinMs);
     };
     const scheduler = createSolveScheduler<StudyParams, Timed>({
       solve: async (params, accuracy) => {
@@ -106,5 +106,5 @@ export function useLiveSolve(): void {
       studyEditorStore.getState().setHoldShown(false);
       scheduler.dispose();
     };
-  }, []);
+  }, [showWithinMs]);
 }
